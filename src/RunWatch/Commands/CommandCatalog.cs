@@ -1,0 +1,14 @@
+using System.CommandLine;
+
+namespace RunWatch.Commands;
+
+/// <summary>The verbs of the <c>runwatch</c> executable. Each verb lives in its own file.</summary>
+internal static class CommandCatalog
+{
+    public static RootCommand Build()
+    {
+        var root = new RootCommand("RunWatch: records growth-chamber thermal history, measures SEM fields of nanowires and writes a QC verdict per wafer.");
+        root.Subcommands.Add(DemoCommand.Create());
+        return root;
+    }
+}

@@ -1,0 +1,3 @@
+using RunWatch.Commands;
+
+return await CommandCatalog.Build().Parse(args).InvokeAsync().ConfigureAwait(false);

@@ -1,0 +1,9 @@
+namespace RunWatch.Benchmarks;
+
+/// <summary>Every benchmark the runner knows. Add one line per benchmark.</summary>
+internal static class BenchmarkCatalog
+{
+    public static IReadOnlyList<IBenchmark> All { get; } =
+    [
+    ];
+}

@@ -1,0 +1,3 @@
+using RunWatch.Benchmarks;
+
+return BenchmarkRunner.Run(args);

@@ -1,0 +1,73 @@
+#!/usr/bin/env bash
+# The one command that passes the tests on a fresh machine:
+#   bash tests/run.sh            install what is missing, build, run every test tier, print the benchmarks
+#   bash tests/run.sh --no-bench skip the benchmark tier (quicker while developing)
+# Test tiers: unit and integration tests (xunit, with a real Mosquitto broker, SQLite, Python reference
+# libraries, headless Chromium where a test needs them), then the benchmarks, which print figures and ratios.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+
+run_bench=1
+for arg in "$@"; do
+  case "$arg" in
+    --no-bench) run_bench=0 ;;
+    *) echo "unknown option: $arg (known: --no-bench)"; exit 2 ;;
+  esac
+done
+
+# Debian packages the tests use: an independent MQTT broker and clients, PDF text extraction, an independent
+# TIFF writer, the Python reference libraries (for /usr/bin/python3), a headless browser, fonts.
+debian_packages=(mosquitto mosquitto-clients poppler-utils imagemagick python3-scipy python3-skimage
+  python3-shapely python3-opencv python3-pil chromium chromium-driver fonts-dejavu-core)
+
+missing=()
+for p in "${debian_packages[@]}"; do
+  dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
+done
+if [ ${#missing[@]} -gt 0 ]; then
+  if [ "$(id -u)" = 0 ]; then
+    echo "installing Debian packages: ${missing[*]}"
+    apt-get update -qq
+    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "${missing[@]}" >/dev/null
+  else
+    echo "missing Debian packages: ${missing[*]}"
+    echo "install them with: sudo apt-get install ${missing[*]}"
+    exit 2
+  fi
+fi
+# The Debian broker must not run as a system service here: tests start their own on free loopback ports.
+if command -v systemctl >/dev/null 2>&1; then systemctl stop mosquitto >/dev/null 2>&1 || true; fi
+
+export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
+export RUNWATCH_REFERENCE_PYTHON=/usr/bin/python3
+
+echo "== build"
+dotnet build RunWatch.sln -c Release -nologo -v quiet
+
+results_dir=$(mktemp -d)
+total_passed=0; total_failed=0; total_skipped=0; status=0
+for project in tests/*.Tests/*.csproj; do
+  name=$(basename "$project" .csproj)
+  echo "== test $name"
+  log="$results_dir/$name.log"
+  if dotnet test "$project" -c Release --no-build -nologo --logger "console;verbosity=normal" >"$log" 2>&1; then :; else status=1; fi
+  grep -E "^\s+(Failed|Passed) |error|Error Message|Assert\." "$log" | grep -vE "^\s+Passed " | head -60 || true
+  line=$(grep -E "(Passed|Failed)!.*Total:" "$log" | tail -1 || true)
+  if [ -z "$line" ]; then
+    echo "   no summary from $name (see below)"; tail -30 "$log"; status=1; continue
+  fi
+  echo "   $line"
+  p=$(sed -E 's/.*Passed: *([0-9]+).*/\1/' <<<"$line"); f=$(sed -E 's/.*Failed: *([0-9]+).*/\1/' <<<"$line")
+  s=$(sed -E 's/.*Skipped: *([0-9]+).*/\1/' <<<"$line")
+  total_passed=$((total_passed + p)); total_failed=$((total_failed + f)); total_skipped=$((total_skipped + s))
+done
+
+if [ "$run_bench" = 1 ]; then
+  echo "== benchmarks (figures and ratios; reported, never pass/fail on time)"
+  dotnet run -c Release --no-build --project tests/RunWatch.Benchmarks -- --quick || status=1
+fi
+
+echo
+echo "Tests: $total_passed passed, $total_failed failed, $total_skipped skipped"
+[ "$total_failed" = 0 ] || status=1
+exit $status
