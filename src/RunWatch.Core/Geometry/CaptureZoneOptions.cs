@@ -10,6 +10,10 @@ public sealed record CaptureZoneOptions
     /// <value>Default +∞.</value>
     public double DiffusionLength { get; init; } = double.PositiveInfinity;
 
+    /// <summary>Which zones are flagged as guarded.</summary>
+    /// <value>Default <see cref="GuardRule.DiscCrossesEdge"/> (the design notes' rule).</value>
+    public GuardRule GuardRule { get; init; } = GuardRule.DiscCrossesEdge;
+
     /// <summary>Whether to return each zone's outline (for overlays). Costs memory, little time.</summary>
     /// <value>Default false.</value>
     public bool IncludeOutlines { get; init; }
@@ -32,6 +36,10 @@ public sealed record CaptureZoneOptions
         if (!double.IsFinite(OutlineArcStepDegrees) || OutlineArcStepDegrees <= 0.0 || OutlineArcStepDegrees > 90.0)
         {
             throw new ArgumentException($"outline arc step must be in (0, 90] degrees (got {OutlineArcStepDegrees})");
+        }
+        if (!Enum.IsDefined(GuardRule))
+        {
+            throw new ArgumentException($"unknown guard rule {GuardRule}");
         }
         if (MaxDegreeOfParallelism < 0)
         {

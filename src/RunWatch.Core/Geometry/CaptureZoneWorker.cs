@@ -13,6 +13,7 @@ internal sealed class CaptureZoneWorker
     private readonly double _length;
     private readonly bool _finite;
     private readonly double _arcStep;
+    private readonly GuardRule _guardRule;
     private readonly double _clipMinX, _clipMinY, _clipMaxX, _clipMaxY;
     private readonly double _edgeTolerance;
     private double[] _xs = new double[64];
@@ -22,8 +23,9 @@ internal sealed class CaptureZoneWorker
     private double[] _side = new double[64];
     private int _count;
 
-    public CaptureZoneWorker(PointGrid grid, double diffusionLength, double arcStepRadians)
+    public CaptureZoneWorker(PointGrid grid, double diffusionLength, double arcStepRadians, GuardRule guardRule)
     {
+        _guardRule = guardRule;
         _grid = grid;
         _length = diffusionLength;
         _finite = double.IsFinite(diffusionLength);
@@ -49,7 +51,9 @@ internal sealed class CaptureZoneWorker
         ReadOnlySpan<double> xs = _xs.AsSpan(0, _count), ys = _ys.AsSpan(0, _count);
         area = insideDisc ? ConvexPolygonMath.Area(xs, ys) : ConvexPolygonMath.DiscIntersectionArea(xs, ys, _length);
 
-        bool guarded = !field.Periodic && IsGuarded(px, py);
+        bool guarded = !field.Periodic && (_guardRule == GuardRule.UnseenNeighbourCouldCut
+            ? UnseenNeighbourCouldCut(px, py, EffectiveReachSquared())
+            : IsGuarded(px, py));
         if (outline is not null)
         {
             if (insideDisc)
@@ -280,6 +284,19 @@ internal sealed class CaptureZoneWorker
             }
         }
         return field.Band is { } b && OverlapsRectangle(px, py, b);
+    }
+
+    /// <summary>Airtight rule: the nearest place an unseen wire could be (outside the field, or in the band) is closer than 2R.</summary>
+    private bool UnseenNeighbourCouldCut(double px, double py, double reach2)
+    {
+        CaptureField field = _grid.Field;
+        double edge = Math.Min(Math.Min(px - field.MinX, field.MaxX - px), Math.Min(py - field.MinY, field.MaxY - py));
+        double free2 = edge * edge;
+        if (field.Band is { } band)
+        {
+            free2 = Math.Min(free2, band.DistanceSquaredTo(px, py));
+        }
+        return free2 < 4.0 * reach2;
     }
 
     /// <summary>Separating-axis test of the convex cell against an axis-aligned rectangle.</summary>

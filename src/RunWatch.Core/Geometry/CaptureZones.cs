@@ -60,7 +60,7 @@ public static class CaptureZones
         {
             if (n < SequentialBelow || threads == 1)
             {
-                var worker = new CaptureZoneWorker(grid, length, arcStep);
+                var worker = new CaptureZoneWorker(grid, length, arcStep, options.GuardRule);
                 for (int chunk = 0; chunk < chunks; chunk++)
                 {
                     RunChunk(chunk, worker);
@@ -72,7 +72,7 @@ public static class CaptureZones
                     0,
                     chunks,
                     new ParallelOptions { MaxDegreeOfParallelism = threads },
-                    () => new CaptureZoneWorker(grid, length, arcStep),
+                    () => new CaptureZoneWorker(grid, length, arcStep, options.GuardRule),
                     (chunk, _, worker) =>
                     {
                         RunChunk(chunk, worker);
