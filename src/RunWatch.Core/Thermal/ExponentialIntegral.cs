@@ -16,13 +16,13 @@ public static class ExponentialIntegral
     public static double E1(double x) => x > 1 ? Math.Exp(-x) * ScaledContinuedFraction(1, x) : SeriesE1(x);
 
     /// <summary>E2(x) for x ≥ 0 (E2(0) = 1).</summary>
-    public static double E2(double x) => x > 1 ? Math.Exp(-x) * ScaledContinuedFraction(2, x) : Math.Exp(-x) - x * SeriesE1(x);
+    public static double E2(double x) => x > 1 ? Math.Exp(-x) * ScaledContinuedFraction(2, x) : x == 0 ? 1 : Math.Exp(-x) - x * SeriesE1(x);
 
     /// <summary>eˣ·E1(x) for x &gt; 0.</summary>
     public static double ScaledE1(double x) => x > 1 ? ScaledContinuedFraction(1, x) : Math.Exp(x) * SeriesE1(x);
 
     /// <summary>eˣ·E2(x) for x ≥ 0; tends to 1/x for large x.</summary>
-    public static double ScaledE2(double x) => x > 1 ? ScaledContinuedFraction(2, x) : 1 - x * Math.Exp(x) * SeriesE1(x);
+    public static double ScaledE2(double x) => x > 1 ? ScaledContinuedFraction(2, x) : x == 0 ? 1 : 1 - x * Math.Exp(x) * SeriesE1(x);
 
     private static double SeriesE1(double x)
     {
