@@ -50,6 +50,7 @@ public sealed class PhysicalConstantsTests
         Assert.Equal(kelvin, PhysicalConstants.CelsiusToKelvin(celsius), 1e-9);
         Assert.Equal(celsius, PhysicalConstants.KelvinToCelsius(kelvin), 1e-9);
         double roundTrip = PhysicalConstants.KelvinToCelsius(PhysicalConstants.CelsiusToKelvin(celsius));
-        Assert.True(Math.Abs(roundTrip - celsius) <= 2 * Math.BitIncrement(celsius) - 2 * celsius + 1e-12, $"{roundTrip} vs {celsius}");
+        double ulpOfKelvin = Math.BitIncrement(kelvin) - kelvin;
+        Assert.True(Math.Abs(roundTrip - celsius) <= ulpOfKelvin, $"{roundTrip} vs {celsius}");
     }
 }
