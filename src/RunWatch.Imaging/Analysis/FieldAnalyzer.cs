@@ -76,27 +76,9 @@ public static partial class FieldAnalyzer
             notes.Add("the excluded band would cover the whole image; it was ignored");
         }
         int validH = h - bandRows;
-        int validN = w * validH;
         Mark("band");
 
-        var processed = new ushort[validN];
-        double backgroundRemoved = 0;
-        if (options.BackgroundWindowPixels > 0 && Math.Min(w, validH) >= 8)
-        {
-            backgroundRemoved = BackgroundFlattener.Flatten(image.Pixels, processed, w, validH, options.BackgroundWindowPixels);
-        }
-        else
-        {
-            Array.Copy(image.Pixels, processed, validN);
-        }
-        Mark("flatten");
-        if (options.DenoiseRadius > 0)
-        {
-            var temp = new ushort[validN];
-            BoxBlur.Apply(processed, processed, temp, w, validH, options.DenoiseRadius);
-            BoxBlur.Apply(processed, processed, temp, w, validH, options.DenoiseRadius);
-        }
-        Mark("denoise");
+        ushort[] processed = Preprocess(image, validH, options, out double backgroundRemoved, Mark);
 
         int threshold = options.ManualThreshold ?? OtsuThreshold.Compute(processed);
         string method = options.ManualThreshold is null ? "otsu" : "manual";
@@ -153,6 +135,32 @@ public static partial class FieldAnalyzer
             Timings = timings,
         };
         return (analysis, new FieldRaster(image, labels, zoneMap, validH));
+    }
+
+    /// <summary>Flattening and denoising of the rows above the band: the image the threshold is applied to.</summary>
+    internal static ushort[] Preprocess(GrayImage image, int validHeight, FieldAnalysisOptions options, out double backgroundRemoved, Action<string>? mark = null)
+    {
+        int w = image.Width;
+        int validN = w * validHeight;
+        var processed = new ushort[validN];
+        backgroundRemoved = 0;
+        if (options.BackgroundWindowPixels > 0 && Math.Min(w, validHeight) >= 8)
+        {
+            backgroundRemoved = BackgroundFlattener.Flatten(image.Pixels, processed, w, validHeight, options.BackgroundWindowPixels);
+        }
+        else
+        {
+            Array.Copy(image.Pixels, processed, validN);
+        }
+        mark?.Invoke("flatten");
+        if (options.DenoiseRadius > 0)
+        {
+            var temp = new ushort[validN];
+            BoxBlur.Apply(processed, processed, temp, w, validHeight, options.DenoiseRadius);
+            BoxBlur.Apply(processed, processed, temp, w, validHeight, options.DenoiseRadius);
+        }
+        mark?.Invoke("denoise");
+        return processed;
     }
 
     private static (int Rows, string Source) ExcludedBand(GrayImage image, FieldSidecar? sidecar, FieldAnalysisOptions options)
