@@ -85,6 +85,23 @@ public static class GrayImageDecoder
                 $"the header claims {info.Width:N0} × {info.Height:N0} = {pixels:N0} pixels, more than the limit of {limits.MaxPixels:N0}");
         }
 
+        if (format is TiffFormat)
+        {
+            string? problem;
+            try
+            {
+                problem = TiffExtentCheck.FindProblem(stream);
+            }
+            catch (EndOfStreamException)
+            {
+                problem = "the image directory is cut short";
+            }
+            if (problem is not null)
+            {
+                throw new ImageDecodeException(name, ImageDecodeFailure.Corrupt, problem);
+            }
+        }
+
         stream.Position = 0;
         try
         {
