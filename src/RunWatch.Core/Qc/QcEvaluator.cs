@@ -24,7 +24,7 @@ public static class QcEvaluator
 
         if (spec.MinWireCount is { } minWires)
         {
-            rules.Add(Lower("wire-count", "wires measured, enough to judge the statistics", input.WireCount, minWires, null, "", missing, "0"));
+            rules.Add(Lower("wire-count", "wires measured", input.WireCount, minWires, null, "", missing, "0"));
         }
         if (spec.TargetMeanRadiusNm is { } target && spec.MeanRadiusToleranceNm is { } tolerance)
         {
@@ -32,7 +32,7 @@ public static class QcEvaluator
         }
         if (spec.MaxRadiusCv is { } maxCv)
         {
-            rules.Add(Upper("radius-cv", "radius spread (coefficient of variation)", input.RadiusCv, maxCv, spec.WarnRadiusCv, "", missing, "0.###"));
+            rules.Add(Upper("radius-cv", "radius CV (SD / mean)", input.RadiusCv, maxCv, spec.WarnRadiusCv, "", missing, "0.###"));
         }
         if (spec.MinDensityPerCm2 is not null || spec.MaxDensityPerCm2 is not null)
         {
@@ -40,25 +40,25 @@ public static class QcEvaluator
         }
         if (spec.MinVerticalYield is { } minYield)
         {
-            rules.Add(Lower("vertical-yield", "fraction of vertical wires", input.VerticalYield, minYield, spec.WarnVerticalYield, "", missing, "0.###"));
+            rules.Add(Lower("vertical-yield", "vertical yield", input.VerticalYield, minYield, spec.WarnVerticalYield, "", missing, "0.###"));
         }
         if (spec.MaxAbsBiasNm is { } maxBias)
         {
             double? absBias = input.PredictionBiasNm is { } bias ? Math.Abs(bias) : null;
-            QcRuleResult r = Upper("prediction-bias", "|predicted − measured| mean radius", absBias, maxBias, spec.WarnAbsBiasNm, "nm", missing, "0.##");
+            QcRuleResult r = Upper("prediction-bias", "|predicted − measured| radius bias", absBias, maxBias, spec.WarnAbsBiasNm, "nm", missing, "0.##");
             rules.Add(r with { Measured = input.PredictionBiasNm });
         }
         if (spec.MaxExcursionCount is { } maxExc)
         {
-            rules.Add(Upper("excursion-count", "temperature excursions in the growth window", input.ExcursionCount, maxExc, spec.WarnExcursionCount, "", missing, "0"));
+            rules.Add(Upper("excursion-count", "excursions in the growth window", input.ExcursionCount, maxExc, spec.WarnExcursionCount, "", missing, "0"));
         }
         if (spec.MaxAbsRelativeLChange is { } maxDl)
         {
-            rules.Add(Upper("excursion-effect", "largest |ΔL/L| caused by one excursion", input.MaxAbsRelativeLChange, maxDl, spec.WarnAbsRelativeLChange, "", missing, "0.####"));
+            rules.Add(Upper("excursion-effect", "largest |ΔL/L| of one excursion", input.MaxAbsRelativeLChange, maxDl, spec.WarnAbsRelativeLChange, "", missing, "0.####"));
         }
         if (spec.MinThermalCoverage is { } minCov)
         {
-            rules.Add(Lower("thermal-coverage", "share of the growth window covered by the thermal record", input.ThermalCoverage, minCov, spec.WarnThermalCoverage, "", missing, "0.###"));
+            rules.Add(Lower("thermal-coverage", "thermal record coverage of the window", input.ThermalCoverage, minCov, spec.WarnThermalCoverage, "", missing, "0.###"));
         }
 
         QcOutcome worst = QcOutcome.Pass;
@@ -75,7 +75,7 @@ public static class QcEvaluator
     private static QcRuleResult MeanRadius(double? mean, double target, double tolerance, double? warnTolerance, QcOutcome missing)
     {
         const string Rule = "mean-radius";
-        const string Description = "mean wire radius against the recipe's target";
+        const string Description = "mean radius against target";
         string limit = F("{0:0.##} ± {1:0.##}", target, tolerance);
         string warnLimit = warnTolerance is { } w ? F("{0:0.##} ± {1:0.##}", target, w) : "";
         if (mean is not { } m || !double.IsFinite(m))
