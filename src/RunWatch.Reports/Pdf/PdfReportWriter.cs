@@ -48,6 +48,8 @@ public static class PdfReportWriter
             Creation = id.GeneratedAt.UtcDateTime,
             Modified = id.GeneratedAt.UtcDateTime,
             RasterDpi = 150,
+            // 101 asks Skia for lossless (Flate) images; the default re-encodes charts and thumbnails as lossy JPEG.
+            EncodingQuality = 101,
         };
         using SKDocument document = SKDocument.CreatePdf(output, metadata) ?? throw new InvalidOperationException("SkiaSharp could not create a PDF document.");
         using (var page = new PdfLayout(document, "RunWatch wafer report · " + id.WaferId + " · run " + id.RunId + " · " + Time(id.GeneratedAt)))
