@@ -168,6 +168,21 @@ public sealed class CaptureZonesTests
         Assert.True(sequential.Guarded.SequenceEqual(parallel.Guarded));
     }
 
+    [Fact]
+    public void Compute_OutlinesInParallel_EqualSequentialOutlines()
+    {
+        var field = CaptureField.Rectangle(400, 300);
+        Point2D[] points = NucleationSites.Uniform(field, 9000, 22);
+        var options = new CaptureZoneOptions { DiffusionLength = 2.0, IncludeOutlines = true, MaxDegreeOfParallelism = 1 };
+        CaptureZoneResult sequential = CaptureZones.Compute(points, field, options);
+        CaptureZoneResult parallel = CaptureZones.Compute(points, field, options with { MaxDegreeOfParallelism = 2 });
+        for (int i = 0; i < points.Length; i++)
+        {
+            Assert.True(sequential.Outline(i).SequenceEqual(parallel.Outline(i)), $"outline {i} differs");
+            Assert.True(sequential.Outline(i).Length >= 3);
+        }
+    }
+
     [Theory]
     [InlineData(double.PositiveInfinity)]
     [InlineData(4.0)]
@@ -175,8 +190,9 @@ public sealed class CaptureZonesTests
     {
         // DERIVED: the outline's shoelace area equals the zone area (arcs sampled at 1°: the chord deficit per
         // arc is below 5e-5 of its sector, so 1e-3 relative bounds it).
-        var field = CaptureField.Rectangle(80, 60);
-        Point2D[] points = NucleationSites.Uniform(field, 300, 8);
+        // 1500 points span three chunks of 512, so the re-ordering of outlines from grid order is exercised.
+        var field = CaptureField.Rectangle(180, 150);
+        Point2D[] points = NucleationSites.Uniform(field, 1500, 8);
         var options = new CaptureZoneOptions { DiffusionLength = length, IncludeOutlines = true, OutlineArcStepDegrees = 1 };
         CaptureZoneResult result = CaptureZones.Compute(points, field, options);
         for (int i = 0; i < points.Length; i++)
