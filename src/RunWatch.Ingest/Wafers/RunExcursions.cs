@@ -22,10 +22,15 @@ internal sealed record RunExcursions(IReadOnlyList<ExcursionRow> Rows, int? Coun
         using var doc = JsonDocument.Parse(json);
         foreach (JsonElement e in doc.RootElement.EnumerateArray())
         {
-            double rel = Number(e, "relativeLChange");
-            maxAbs = Math.Max(maxAbs, Math.Abs(double.IsFinite(rel) ? rel : 0));
-            rows.Add(new ExcursionRow(Number(e, "startS"), Number(e, "endS"), Number(e, "peakValueC"), Number(e, "peakDeviationK"), rel,
-                e.TryGetProperty("description", out JsonElement d) && d.ValueKind == JsonValueKind.String ? d.GetString() ?? "" : ""));
+            double start = Seconds(e, "start", run.StartedAt);
+            double end = Seconds(e, "end", run.StartedAt);
+            double changeNm = Number(e, "lengthChangeNm");
+            double rel = double.IsFinite(changeNm) && run.LEffNm is > 0 ? changeNm / run.LEffNm.Value : double.NaN;
+            maxAbs = Math.Max(maxAbs, double.IsFinite(rel) ? Math.Abs(rel) : 0);
+            string severity = Text(e, "severity");
+            bool closed = !e.TryGetProperty("closed", out JsonElement c) || c.ValueKind != JsonValueKind.False;
+            rows.Add(new ExcursionRow(start, end, Number(e, "peakValueC"), Number(e, "peakDeviationK"), rel,
+                closed ? severity : severity + " (still open at run end)"));
         }
         return new RunExcursions(rows, rows.Count, maxAbs);
     }
@@ -55,6 +60,14 @@ internal sealed record RunExcursions(IReadOnlyList<ExcursionRow> Rows, int? Coun
         double c = Number(doc.RootElement, "conventionFactor");
         return double.IsFinite(c) && c > 0 ? c : 1;
     }
+
+    private static double Seconds(JsonElement e, string name, DateTimeOffset origin) =>
+        e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.String && v.TryGetDateTimeOffset(out DateTimeOffset t)
+            ? (t - origin).TotalSeconds
+            : double.NaN;
+
+    private static string Text(JsonElement e, string name) =>
+        e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.String ? v.GetString() ?? "" : "";
 
     private static double Number(JsonElement e, string name) =>
         e.ValueKind == JsonValueKind.Object && e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.Number ? v.GetDouble() : double.NaN;
