@@ -109,6 +109,8 @@ public static partial class FieldAnalyzer
 
         (wires, FieldStatistics stats) = Summarise(wires, w, validH, lengthScale, scale.HasScale, lengthL, zoneAreas, notes);
         Mark("statistics");
+        (wires, stats) = AddPointPatterns(wires, stats, w, validH, lengthScale, lengthL, notes);
+        Mark("point patterns");
         if (wires.Length == 0)
         {
             notes.Add("no wires were found");

@@ -45,6 +45,7 @@ public static class SemFieldGenerator
             objects.Add(new SemObject(SemObjectKind.Parasitic, x, y, 2.2 * meanSide, 0, random.NextDouble() * 360));
         }
 
+        int parasiteIndex = 0;
         foreach (SemObject o in objects)
         {
             switch (o.Kind)
@@ -56,7 +57,7 @@ public static class SemFieldGenerator
                     DrawTilted(signal, w, h, o, spec);
                     break;
                 default:
-                    DrawParasite(signal, w, h, o, spec, new Random(HashCode.Combine(spec.Seed, o.X, o.Y)));
+                    DrawParasite(signal, w, h, o, spec, new Random(Mix(spec.Seed, parasiteIndex++)));
                     break;
             }
         }
@@ -65,7 +66,7 @@ public static class SemFieldGenerator
         int stripTop = h - Math.Clamp(spec.InfoStripRows, 0, h);
         Parallel.For(0, h, y =>
         {
-            var noise = new Random(HashCode.Combine(spec.Seed, y, 0x5E3));
+            var noise = new Random(Mix(spec.Seed, 1_000_000 + y));
             for (int x = 0; x < w; x++)
             {
                 double gx = (double)x / w, gy = (double)y / h;
@@ -79,6 +80,15 @@ public static class SemFieldGenerator
             DrawInfoStrip(pixels, w, h, stripTop);
         }
         return new SemField(w, h, pixels, objects, h - stripTop, spec.PixelSizeNm);
+    }
+
+    /// <summary>A fixed integer mix (SplitMix64 finaliser) for per-row and per-object seeds; HashCode is randomised per process.</summary>
+    private static int Mix(int seed, int index)
+    {
+        ulong z = ((ulong)(uint)seed << 32 | (uint)index) + 0x9E3779B97F4A7C15UL;
+        z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9UL;
+        z = (z ^ (z >> 27)) * 0x94D049BB133111EBUL;
+        return (int)(z ^ (z >> 31));
     }
 
     private static double Gaussian(Random r)

@@ -25,4 +25,34 @@ public sealed class FieldAnalyzerTests(ITestOutputHelper output)
         Assert.Equal(field.InfoStripRows, analysis.ExcludedBottomRows);
         Assert.InRange(analysis.Statistics.ObjectsFound, field.Objects.Count * 0.97, field.Objects.Count * 1.03);
     }
+
+    [Fact]
+    public void Generate_SameSeed_GivesSamePixels()
+    {
+        Assert.Equal(Fields.Standard(3, 256, 192, 60, strip: 16).Pixels, Fields.Standard(3, 256, 192, 60, strip: 16).Pixels);
+        Assert.NotEqual(Fields.Standard(3, 256, 192, 60, strip: 16).Pixels, Fields.Standard(4, 256, 192, 60, strip: 16).Pixels);
+    }
+
+    [Fact]
+    public void Analyze_GeneratedField_ReportsPointPatternsAndZones()
+    {
+        SemField field = Fields.Standard(9);
+        var image = new GrayImage(field.Width, field.Height, field.Pixels);
+        FieldAnalysis analysis = FieldAnalyzer.AnalyzeWithRaster(image, "generated", new FieldSidecar { PixelSizeNm = 5 },
+            new FieldAnalysisOptions { DiffusionLengthNm = 80 }).Analysis;
+        FieldStatistics s = analysis.Statistics;
+        output.WriteLine($"R {s.ClarkEvansR:0.000} z {s.ClarkEvansZ:0.0}; beta {s.WignerBeta:0.00} i {s.CriticalNucleus:0.0}; edge Â {s.EdgeZoneNormalized?.Mean:0.000}, centroid Â {s.CentroidZoneNormalized?.Mean:0.000}");
+        // The sites are a hard-core scatter: more ordered than Poisson, so R > 1 (Clark & Evans 1954).
+        Assert.True(s.ClarkEvansR > 1.1, $"R = {s.ClarkEvansR}");
+        Assert.NotNull(s.WignerBeta);
+        // DERIVED: edge zones and wire footprints are disjoint parts of the analysed area; so are centroid zones.
+        double analysed = s.AnalysedAreaPixels * 25;
+        Assert.InRange(analysis.Wires.Sum(w => w.EdgeZoneArea!.Value + w.Area), 0.5 * analysed, analysed);
+        Assert.InRange(analysis.Wires.Sum(w => w.CentroidZoneArea!.Value), 0.5 * analysed, analysed);
+        Assert.All(analysis.Wires.Where(w => w.ZoneGuarded == false), w => Assert.InRange(w.CentroidZoneNormalized!.Value, 0, 1));
+        // Density: every object counted by centroid over the analysed area, 5 nm pixels (DERIVED: 1 µm² = 1e-8 cm²).
+        double areaUm2 = field.Width * (field.Height - field.InfoStripRows) * 25e-6;
+        Assert.Equal(analysis.Wires.Count / areaUm2, s.DensityPerUm2!.Value, 9);
+        Assert.Equal(s.DensityPerUm2.Value * 1e8, s.DensityPerCm2!.Value, 3);
+    }
 }
