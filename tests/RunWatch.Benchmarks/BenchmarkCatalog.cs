@@ -5,6 +5,7 @@ internal static class BenchmarkCatalog
 {
     public static IReadOnlyList<IBenchmark> All { get; } =
     [
+        new ImagingBenchmark(),
         new CaptureZoneBenchmark(),
     ];
 }

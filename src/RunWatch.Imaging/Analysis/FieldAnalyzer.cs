@@ -155,7 +155,11 @@ public static partial class FieldAnalyzer
             Array.Copy(image.Pixels, processed, validN);
         }
         mark?.Invoke("flatten");
-        if (options.DenoiseRadius > 0)
+        if (options.DenoiseRadius == 1)
+        {
+            TriangleSmoothing.Apply(processed, w, validHeight);
+        }
+        else if (options.DenoiseRadius > 1)
         {
             var temp = new ushort[validN];
             BoxBlur.Apply(processed, processed, temp, w, validHeight, options.DenoiseRadius);

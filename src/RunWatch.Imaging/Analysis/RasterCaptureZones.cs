@@ -13,8 +13,8 @@ internal static class RasterCaptureZones
     /// <summary>Zone area in pixels per label (index = label); optionally writes the zone label of every pixel into <paramref name="zoneMap"/>.</summary>
     public static long[] Compute(int[] labels, int width, int height, int validHeight, int maxLabel, double radiusPixels, int[]? zoneMap)
     {
-        var nearestRow = new int[labels.Length];
-        DistanceTransform.ColumnPass(labels, width, height, nearestRow);
+        var nearestRow = new ushort[labels.Length];
+        DistanceTransform.ColumnPass16(labels, width, height, nearestRow);
         double limit2 = radiusPixels * radiusPixels;
         var total = new long[maxLabel + 1];
         object gate = new();
@@ -24,9 +24,14 @@ internal static class RasterCaptureZones
             var scratch = new DistanceTransform.RowScratch(width);
             var d2 = new int[width];
             var column = new int[width];
+            var rowNear = new int[width];
             for (int y = y0; y < y1; y++)
             {
-                ReadOnlySpan<int> rowNear = nearestRow.AsSpan(y * width, width);
+                ReadOnlySpan<ushort> packed = nearestRow.AsSpan(y * width, width);
+                for (int x = 0; x < width; x++)
+                {
+                    rowNear[x] = packed[x] == DistanceTransform.NoFeature16 ? DistanceTransform.NoFeature : packed[x];
+                }
                 ReadOnlySpan<int> rowLabels = labels.AsSpan(y * width, width);
                 Span<int> zoneRow = zoneMap is null ? Span<int>.Empty : zoneMap.AsSpan(y * width, width);
                 if (!DistanceTransform.RowPass(rowNear, y, d2, column, scratch))

@@ -50,32 +50,45 @@ internal static class BackgroundFlattener
             total += coarse[i];
         }
 
+        // Coarse sample k sits at the centre of its block, (k + 0.5)·f − 0.5 in full-size pixels.
+        var ix0 = new int[width];
+        var ix1 = new int[width];
+        var tx = new float[width];
+        for (int x = 0; x < width; x++)
+        {
+            (ix0[x], ix1[x], tx[x]) = Interpolation(x, f, cw);
+        }
         Parallel.For(0, BoxBlur.BandCount(height), band =>
         {
             (int ys, int ye) = BoxBlur.Band(band, height);
+            var line = new float[cw];
             for (int y = ys; y < ye; y++)
             {
-                // Coarse sample k sits at the centre of its block, (k + 0.5)·f − 0.5 in full-size pixels.
-                float gy = Math.Clamp((y + 0.5f) / f - 0.5f, 0, ch - 1);
-                int iy = Math.Min((int)gy, ch - 2 < 0 ? 0 : ch - 2);
-                float ty = ch > 1 ? gy - iy : 0;
-                int iy1 = Math.Min(iy + 1, ch - 1);
+                (int iy0, int iy1, float ty) = Interpolation(y, f, ch);
+                ReadOnlySpan<float> top = coarse.AsSpan(iy0 * cw, cw);
+                ReadOnlySpan<float> bottom = coarse.AsSpan(iy1 * cw, cw);
+                for (int cx = 0; cx < cw; cx++)
+                {
+                    line[cx] = top[cx] + (bottom[cx] - top[cx]) * ty;
+                }
                 ReadOnlySpan<ushort> srow = src.AsSpan(y * width, width);
                 Span<ushort> drow = dst.AsSpan(y * width, width);
                 for (int x = 0; x < width; x++)
                 {
-                    float gx = Math.Clamp((x + 0.5f) / f - 0.5f, 0, cw - 1);
-                    int ix = Math.Min((int)gx, cw - 2 < 0 ? 0 : cw - 2);
-                    float tx = cw > 1 ? gx - ix : 0;
-                    int ix1 = Math.Min(ix + 1, cw - 1);
-                    float top = coarse[iy * cw + ix] + (coarse[iy * cw + ix1] - coarse[iy * cw + ix]) * tx;
-                    float bottom = coarse[iy1 * cw + ix] + (coarse[iy1 * cw + ix1] - coarse[iy1 * cw + ix]) * tx;
-                    float bg = top + (bottom - top) * ty;
+                    float bg = line[ix0[x]] + (line[ix1[x]] - line[ix0[x]]) * tx[x];
                     float v = srow[x] - bg;
                     drow[x] = v <= 0 ? (ushort)0 : (ushort)(v + 0.5f);
                 }
             }
         });
         return total / coarse.Length;
+    }
+
+    private static (int Lower, int Upper, float Weight) Interpolation(int i, int f, int coarseLength)
+    {
+        float g = Math.Clamp((i + 0.5f) / f - 0.5f, 0, coarseLength - 1);
+        int lower = Math.Min((int)g, Math.Max(0, coarseLength - 2));
+        int upper = Math.Min(lower + 1, coarseLength - 1);
+        return (lower, upper, coarseLength > 1 ? g - lower : 0);
     }
 }

@@ -69,6 +69,59 @@ internal static class DistanceTransform
         }
     }
 
+    /// <summary>
+    /// The column pass with 16-bit output (rows &lt; 65535; <see cref="NoFeature16"/> for none), half the memory of
+    /// <see cref="ColumnPass"/> for whole-image zones.
+    /// </summary>
+    public static void ColumnPass16(int[] features, int width, int height, ushort[] nearestRow)
+    {
+        if (height >= NoFeature16)
+        {
+            throw new ArgumentOutOfRangeException(nameof(height), height, "the 16-bit column pass needs fewer than 65535 rows");
+        }
+        Parallel.For(0, BoxBlur.BandCount(width), band =>
+        {
+            (int x0, int x1) = BoxBlur.Band(band, width);
+            int span = x1 - x0;
+            var last = new int[span];
+            Array.Fill(last, NoFeature);
+            for (int y = 0; y < height; y++)
+            {
+                ReadOnlySpan<int> f = features.AsSpan(y * width + x0, span);
+                Span<ushort> n = nearestRow.AsSpan(y * width + x0, span);
+                for (int i = 0; i < span; i++)
+                {
+                    if (f[i] != 0)
+                    {
+                        last[i] = y;
+                    }
+                    n[i] = last[i] == NoFeature ? NoFeature16 : (ushort)last[i];
+                }
+            }
+            Array.Fill(last, NoFeature);
+            for (int y = height - 1; y >= 0; y--)
+            {
+                ReadOnlySpan<int> f = features.AsSpan(y * width + x0, span);
+                Span<ushort> n = nearestRow.AsSpan(y * width + x0, span);
+                for (int i = 0; i < span; i++)
+                {
+                    if (f[i] != 0)
+                    {
+                        last[i] = y;
+                    }
+                    int below = last[i];
+                    int above = n[i] == NoFeature16 ? NoFeature : n[i];
+                    if (below != NoFeature && (above == NoFeature || below - y < y - above))
+                    {
+                        n[i] = (ushort)below;
+                    }
+                }
+            }
+        });
+    }
+
+    public const ushort NoFeature16 = ushort.MaxValue;
+
     /// <summary>Scratch for <see cref="RowPass"/>, one per thread.</summary>
     internal sealed class RowScratch(int width)
     {

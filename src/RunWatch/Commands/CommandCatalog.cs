@@ -11,6 +11,7 @@ internal static class CommandCatalog
         root.Subcommands.Add(DemoCommand.Create());
         root.Subcommands.Add(ThermalCommand.Create());
         root.Subcommands.Add(ReportCommand.Create());
+        root.Subcommands.Add(AnalyzeCommand.Create());
         return root;
     }
 }
