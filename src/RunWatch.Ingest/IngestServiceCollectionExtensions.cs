@@ -4,10 +4,15 @@ using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Options;
 using Prometheus;
+using Microsoft.Extensions.Http.Resilience;
+using Polly;
+using RunWatch.Ingest.Alerts;
 using RunWatch.Ingest.Configuration;
 using RunWatch.Ingest.Health;
 using RunWatch.Ingest.Mqtt;
 using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Retention;
+using RunWatch.Ingest.Runs;
 using RunWatch.Storage;
 
 namespace RunWatch.Ingest;
@@ -59,6 +64,44 @@ public static partial class IngestServiceCollectionExtensions
         services.TryAddSingleton<IMqttPublisher>(sp => sp.GetRequiredService<MqttConnectionService>());
         services.TryAddSingleton<IngestPipeline>();
 
+        services.AddOptions<AlertsOptions>()
+            .Bind(configuration.GetSection(AlertsOptions.SectionName))
+            .ValidateDataAnnotations()
+            .Validate(o => o.WebhookRetryDelay > TimeSpan.Zero && o.WebhookAttemptTimeout > TimeSpan.Zero, "Alerts: webhook delays must be positive")
+            .ValidateOnStart();
+        services.AddOptions<RetentionOptions>()
+            .Bind(configuration.GetSection(RetentionOptions.SectionName))
+            .Validate(o => o.PruneInterval > TimeSpan.Zero && o.MaintenanceInterval > TimeSpan.Zero && o.DeadLetters > TimeSpan.Zero && o.NormalAlerts > TimeSpan.Zero
+                && (o.Samples is null || o.Samples > TimeSpan.Zero), "Retention: intervals and ages must be positive")
+            .ValidateOnStart();
+
+        services.TryAddSingleton<AlertEngine>();
+        services.AddSingleton<ICommittedBatchObserver>(sp => sp.GetRequiredService<RunTracker>());
+        services.AddSingleton<ICommittedBatchObserver>(sp => sp.GetRequiredService<AlertEngine>());
+        services.AddSingleton<IDaemonConditions>(sp => sp.GetRequiredService<AlertEngine>());
+        services.AddSingleton<IRunLifecycleListener>(sp => sp.GetRequiredService<AlertEngine>());
+        services.TryAddSingleton<RunTracker>();
+        services.TryAddSingleton<RunEvaluator>();
+        services.TryAddSingleton<AlertDispatchService>();
+        services.TryAddSingleton<IAlertCommands>(sp => sp.GetRequiredService<AlertDispatchService>());
+        services.AddSingleton<IAlertSink, LogAlertSink>();
+        services.AddSingleton<IAlertSink, MqttAlertSink>();
+        services.AddSingleton<IAlertSink, WebhookAlertSink>();
+        services.AddHttpClient(WebhookAlertSink.ClientName)
+            .AddResilienceHandler("alert-webhook", (pipeline, context) =>
+            {
+                var o = context.ServiceProvider.GetRequiredService<IOptions<AlertsOptions>>().Value;
+                pipeline.AddRetry(new HttpRetryStrategyOptions
+                {
+                    MaxRetryAttempts = Math.Max(1, o.WebhookRetries),
+                    BackoffType = DelayBackoffType.Exponential,
+                    UseJitter = true,
+                    Delay = o.WebhookRetryDelay,
+                    ShouldHandle = args => ValueTask.FromResult(o.WebhookRetries > 0 && HttpClientResiliencePredicates.IsTransient(args.Outcome)),
+                });
+                pipeline.AddTimeout(o.WebhookAttemptTimeout);
+            });
+
         services.AddHealthChecks()
             .AddCheck<BrokerHealthCheck>("broker")
             .AddCheck<StoreHealthCheck>("store")
@@ -71,6 +114,9 @@ public static partial class IngestServiceCollectionExtensions
         }
         services.AddHostedService(sp => sp.GetRequiredService<MqttConnectionService>());
         services.AddHostedService<IngestService>();
+        services.AddHostedService<RunTrackingService>();
+        services.AddHostedService(sp => sp.GetRequiredService<AlertDispatchService>());
+        services.AddHostedService<RetentionService>();
         return services;
     }
 }

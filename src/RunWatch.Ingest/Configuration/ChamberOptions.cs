@@ -1,4 +1,6 @@
 using System.ComponentModel.DataAnnotations;
+using RunWatch.Core.Excursions;
+using RunWatch.Core.Thermal;
 
 namespace RunWatch.Ingest.Configuration;
 
@@ -27,6 +29,9 @@ public sealed class ChamberOptions
     /// <summary>Process parameters for the thermal figures.</summary>
     public ProcessOptions Process { get; set; } = new();
 
-    /// <summary>Alert thresholds.</summary>
-    public ChamberAlertOptions Alerts { get; set; } = new();
+    /// <summary>How L_eff is computed at run end (convention factor c, gap limit).</summary>
+    public DiffusionLengthOptions DiffusionLength { get; set; } = new();
+
+    /// <summary>Live excursion alarms on the growth temperature (bands around the setpoint, limits, rate, stale, flatline).</summary>
+    public ExcursionOptions Excursions { get; set; } = new();
 }

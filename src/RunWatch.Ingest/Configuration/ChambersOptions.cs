@@ -54,6 +54,9 @@ public sealed class ChambersOptions
                     problems.Add("chamber " + chamber.Name + ": more than one channel with role " + role);
                 }
             }
+            problems.AddRange(chamber.Excursions.Validate().Select(e => "chamber " + chamber.Name + ", Excursions: " + e));
+            problems.AddRange(chamber.DiffusionLength.Validate().Select(e => "chamber " + chamber.Name + ", DiffusionLength: " + e));
+            problems.AddRange(chamber.Process.Diffusivity.Validate().Select(e => "chamber " + chamber.Name + ", Process: " + e));
             if (chamber.Runs.Mode == RunDetectionMode.Shutter && !chamber.Channels.Exists(c => c.Role == Storage.ChannelRole.GrowthShutter))
             {
                 problems.Add("chamber " + chamber.Name + ": shutter run detection needs a channel with role GrowthShutter");
