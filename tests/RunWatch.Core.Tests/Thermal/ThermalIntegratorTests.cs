@@ -216,6 +216,31 @@ public sealed class ThermalIntegratorTests
     }
 
     [Fact]
+    public void Integrate_NoisyTenHertzDay_MatchesPerSegmentReference()
+    {
+        // Optimised loop (exp recurrence, specialised calibration) against the plain per-segment rule with two exps
+        // per segment, over a seeded noisy 10 Hz record with a 2-point calibration and a one-point calibration.
+        var random = new Random(5);
+        var (t, r) = ThermalProfiles.Sample(0, 86_400, 0.1, s => 610 + 3 * Math.Sin(s / 900) + 0.2 * (random.NextDouble() - 0.5) + (s % 7200 is > 3000 and < 3100 ? 12 : 0));
+        var d = new ArrheniusDiffusivity(1e-3, 1.0);
+        foreach (TemperatureCalibration calibration in new[]
+        {
+            TemperatureCalibration.FromReference(560, 580),
+            new TemperatureCalibration([new CalibrationPoint(500, 505), new CalibrationPoint(650, 672)]),
+        })
+        {
+            double reference = 0;
+            for (int i = 1; i < t.Length; i++)
+            {
+                reference += ThermalIntegrator.SegmentIntegralS(t[i] - t[i - 1], calibration.ToTrueC(r[i - 1]) + 273.15, calibration.ToTrueC(r[i]) + 273.15, d.ActivationTemperatureK);
+            }
+            reference *= d.D0CmSqPerS;
+            double actual = ThermalIntegrator.Integrate(t, r, calibration, d, 0, 86_400, 10).IntegralCmSq;
+            Assert.True(Math.Abs(actual / reference - 1) < 1e-12, $"{actual} vs {reference}, relative {actual / reference - 1}");
+        }
+    }
+
+    [Fact]
     public void Integrate_LongRecord_AllocatesNothing()
     {
         var (t, r) = ThermalProfiles.Sample(0, 10_000, 0.1, s => 600 + 5 * Math.Sin(s / 50));
