@@ -7,5 +7,6 @@ internal static class BenchmarkCatalog
     [
         new ImagingBenchmark(),
         new CaptureZoneBenchmark(),
+        new ThermalBenchmark(),
     ];
 }

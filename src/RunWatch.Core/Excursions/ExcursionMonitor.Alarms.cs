@@ -28,6 +28,7 @@ public sealed partial class ExcursionMonitor
             throw new ArgumentOutOfRangeException(nameof(untilS), untilS, "A shelve needs an expiry after now.");
         }
         _alarms[(int)kind].ShelvedUntilS = untilS;
+        _earliestShelfExpiryS = Math.Min(_earliestShelfExpiryS, untilS);
         Move(kind, AlarmState.Shelved, nowS);
     }
 
@@ -48,11 +49,20 @@ public sealed partial class ExcursionMonitor
 
     private void ExpireShelves(double nowS)
     {
+        if (!(nowS >= _earliestShelfExpiryS))
+        {
+            return;
+        }
+        _earliestShelfExpiryS = double.PositiveInfinity;
         for (int i = 0; i < _alarms.Length; i++)
         {
             if (_alarms[i].State == AlarmState.Shelved && nowS >= _alarms[i].ShelvedUntilS)
             {
                 Unshelve((AlarmKind)i, nowS);
+            }
+            else if (_alarms[i].State == AlarmState.Shelved)
+            {
+                _earliestShelfExpiryS = Math.Min(_earliestShelfExpiryS, _alarms[i].ShelvedUntilS);
             }
         }
     }

@@ -40,6 +40,7 @@ public sealed partial class ExcursionMonitor
     private double _lastSetpointC;
     private bool _lastInExcursion;
     private double _reportC = double.NaN;
+    private double _earliestShelfExpiryS = double.PositiveInfinity;
     private double _rateAnchorS;
     private double _rateAnchorC;
     private double _flatAnchorS;

@@ -47,6 +47,13 @@ public sealed class TemperatureCalibration
     /// <summary>True when this calibration changes nothing.</summary>
     public bool IsIdentity => _readingsC.Length == 0;
 
+    /// <summary>True when the calibration is one constant offset (no point or one point); gives that offset in K.</summary>
+    internal bool TryGetOffsetK(out double offsetK)
+    {
+        offsetK = _offsetK;
+        return _readingsC.Length < 2;
+    }
+
     /// <summary>The true temperature in °C for an instrument reading in °C.</summary>
     public double ToTrueC(double readingC)
     {

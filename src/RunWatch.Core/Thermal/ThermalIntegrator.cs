@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace RunWatch.Core.Thermal;
 
 /// <summary>
@@ -17,7 +19,7 @@ namespace RunWatch.Core.Thermal;
 /// <para>
 /// Gap policy: a segment longer than the gap limit is not integrated (no interpolation across it); it is reported
 /// as a gap and lowers the coverage. The parts of the window before the first and after the last sample are
-/// uncovered as well, and reported when longer than the limit. One exp per sample; no allocation.
+/// uncovered as well, and reported when longer than the limit. At most one exp per sample; no allocation.
 /// </para>
 /// </summary>
 public static class ThermalIntegrator
@@ -31,9 +33,10 @@ public static class ThermalIntegrator
     /// </summary>
     public static double SegmentIntegralS(double durationS, double startK, double endK, double activationK)
     {
-        double xA = activationK / startK;
+        double invA = 1 / startK;
+        double xA = activationK * invA;
         double xB = activationK / endK;
-        return Segment(durationS, startK, endK, xA, xB, Math.Exp(-xA), Math.Exp(-xB), activationK);
+        return Segment(durationS, startK, endK, invA, xA, xB, Math.Exp(-xA), Math.Exp(-xB), activationK);
     }
 
     /// <summary>
@@ -76,10 +79,25 @@ public static class ThermalIntegrator
         {
             tally.Uncovered(startS, timesS[k]);
         }
+        // Specialise the loop on the calibration: the common offset-only case then inlines to one addition.
+        var (sum, covered, lastTime) = calibration.TryGetOffsetK(out double offsetK)
+            ? Accumulate(new OffsetMap(offsetK + PhysicalConstants.ZeroCelsiusK), timesS, readingsC, k, a, startS, endS, maxGapS, ref tally)
+            : Accumulate(new CalibrationMap(calibration), timesS, readingsC, k, a, startS, endS, maxGapS, ref tally);
+        if (lastTime < endS)
+        {
+            tally.Uncovered(Math.Max(lastTime, startS), endS);
+        }
+        return new IntegrationResult(diffusivity.D0CmSqPerS * sum, covered, windowS, tally.Count, tally.Longest);
+    }
 
+    private static (double Sum, double Covered, double LastTime) Accumulate<TMap>(
+        TMap map, ReadOnlySpan<double> timesS, ReadOnlySpan<double> readingsC, int k, double a, double startS, double endS, double maxGapS, ref GapTally tally)
+        where TMap : struct, ITemperatureMap
+    {
         double tA = timesS[k];
-        double kA = calibration.ToTrueC(readingsC[k]) + PhysicalConstants.ZeroCelsiusK;
-        double xA = a / kA;
+        double kA = map.ToKelvin(readingsC[k]);
+        double invA = 1 / kA;
+        double xA = a * invA;
         double fA = Math.Exp(-xA);
         double sum = 0;
         double covered = 0;
@@ -87,9 +105,15 @@ public static class ThermalIntegrator
         for (int i = k + 1; i <= last && tA < endS; i++)
         {
             double tB = timesS[i];
-            double kB = calibration.ToTrueC(readingsC[i]) + PhysicalConstants.ZeroCelsiusK;
-            double xB = a / kB;
-            double fB = Math.Exp(-xB);
+            double kB = map.ToKelvin(readingsC[i]);
+            double invB = 1 / kB;
+            double xB = a * invB;
+            double step = xA - xB;
+            // e^{−xB} = e^{−xA}·e^{step}: for small steps a Taylor factor (truncation < 2e-18) replaces exp; a true
+            // exp every 64 samples bounds the rounding drift of the product.
+            double fB = Math.Abs(step) < 1e-2 && (i & 63) != 0
+                ? fA * (1 + step * (1 + step * (1.0 / 2 + step * (1.0 / 6 + step * (1.0 / 24 + step * (1.0 / 120 + step * (1.0 / 720)))))))
+                : Math.Exp(-xB);
             double dt = tB - tA;
             if (dt > maxGapS)
             {
@@ -97,7 +121,7 @@ public static class ThermalIntegrator
             }
             else if (tA >= startS && tB <= endS)
             {
-                sum += Segment(dt, kA, kB, xA, xB, fA, fB, a);
+                sum += Segment(dt, kA, kB, invA, xA, xB, fA, fB, a);
                 covered += dt;
             }
             else if (dt > 0)
@@ -115,14 +139,11 @@ public static class ThermalIntegrator
             }
             tA = tB;
             kA = kB;
+            invA = invB;
             xA = xB;
             fA = fB;
         }
-        if (tA < endS)
-        {
-            tally.Uncovered(Math.Max(tA, startS), endS);
-        }
-        return new IntegrationResult(diffusivity.D0CmSqPerS * sum, covered, windowS, tally.Count, tally.Longest);
+        return (sum, covered, tA);
     }
 
     /// <summary>First index whose time is ≥ <paramref name="t"/> (the length when none).</summary>
@@ -145,11 +166,12 @@ public static class ThermalIntegrator
         return lo;
     }
 
-    /// <summary>One segment; x = a/T and f = e^{−x} at both ends are passed in so each sample costs one exp.</summary>
-    internal static double Segment(double dt, double kA, double kB, double xA, double xB, double fA, double fB, double a)
+    /// <summary>One segment; 1/T₀, x = a/T and f = e^{−x} at both ends are passed in so each sample costs at most one exp.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    internal static double Segment(double dt, double kA, double kB, double invA, double xA, double xB, double fA, double fB, double a)
     {
         double lambda = xA - xB;
-        double r = (kB - kA) / kA;
+        double r = (kB - kA) * invA;
         if (Math.Abs(lambda) <= FastRuleMaxStepX && Math.Abs(r) <= FastRuleMaxRelativeStep)
         {
             // ∫₀¹ exp(−x(s)) ds with x(s) = a/(T₀(1+r·s)): −x(s) = −x₀ + λ·s + δ(s),
@@ -166,6 +188,7 @@ public static class ThermalIntegrator
     }
 
     // Mean of exp(−a/T) over a segment too long for the fast rule.
+    [MethodImpl(MethodImplOptions.NoInlining)]
     private static double LargeStep(double kA, double kB, double xA, double xB, double fA, double fB, double a)
     {
         if (a > 0 && kA != kB)
@@ -186,7 +209,7 @@ public static class ThermalIntegrator
             double kNext = j == parts ? kB : kA + (kB - kA) * j / parts;
             double xNext = a / kNext;
             double fNext = Math.Exp(-xNext);
-            mean += Segment(1.0 / parts, kPrev, kNext, xPrev, xNext, fPrev, fNext, a);
+            mean += Segment(1.0 / parts, kPrev, kNext, 1 / kPrev, xPrev, xNext, fPrev, fNext, a);
             kPrev = kNext;
             xPrev = xNext;
             fPrev = fNext;

@@ -55,6 +55,29 @@ public sealed class ThermalIntegratorTests
         Assert.True(Math.Abs(actual / expected - 1) < 1e-9, $"relative {actual / expected - 1}");
     }
 
+    [Fact]
+    public void Integrate_RampsUpToLargeEaOverKT_MatchScipyQuadrature()
+    {
+        // Reference: SciPy (Debian python3-scipy) adaptive quadrature and the E1 closed form with scipy.special.exp1,
+        // tests/reference/thermal_ramp.py. Ea/(kB·T) runs from about 7 to 200, where T·e^{−x} and a·E1(x) cancel.
+        (double Ea, double T0, double Beta, double Duration)[] ramps =
+        [
+            (0.5, 820, 0.4, 600), (1.0, 800, 0.5, 600), (2.5, 870, -0.1, 1800), (6.0, 900, 1.0, 300), (13.78, 800, 0.5, 600),
+        ];
+        string[] args = ramps.SelectMany(r => new[] { r.Ea, r.T0, r.Beta, r.Duration }).Select(v => v.ToString("R", System.Globalization.CultureInfo.InvariantCulture)).ToArray();
+        string[] lines = RunWatch.Testing.Reference.ReferencePython.Run("thermal_ramp.py", args).Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.Equal(ramps.Length, lines.Length);
+        for (int i = 0; i < ramps.Length; i++)
+        {
+            var (ea, t0, beta, duration) = ramps[i];
+            double[] reference = lines[i].Split(' ').Select(v => double.Parse(v, System.Globalization.CultureInfo.InvariantCulture)).ToArray();
+            var (t, r) = ThermalProfiles.Sample(0, duration, 1.0, s => t0 - 273.15 + beta * s);
+            double actual = Integrate(t, r, new ArrheniusDiffusivity(1, ea), 0, duration).IntegralCmSq;
+            Assert.True(Math.Abs(actual / reference[0] - 1) < 1e-9, $"ramp {i}: {actual} vs quad {reference[0]}");
+            Assert.True(Math.Abs(actual / reference[1] - 1) < 1e-9, $"ramp {i}: {actual} vs closed form {reference[1]}");
+        }
+    }
+
     [Theory]
     [InlineData(1.0, 300.0)]
     [InlineData(2.0, 150.0)]
@@ -213,6 +236,31 @@ public sealed class ThermalIntegratorTests
         var (t, r) = ThermalProfiles.Sample(0, 300, 1.0, _ => 600.0);
         IntegrationResult result = ThermalIntegrator.Integrate(t, r, calibration, OneEv, 0, 300, 10);
         Assert.Equal(OneEv.DiffusivityCmSqPerS(620 + 273.15) * 300, result.IntegralCmSq, OneEv.DiffusivityCmSqPerS(893.15) * 300 * 1e-12);
+    }
+
+    [Fact]
+    public void Integrate_NoisyTenHertzDay_MatchesPerSegmentReference()
+    {
+        // Optimised loop (exp recurrence, specialised calibration) against the plain per-segment rule with two exps
+        // per segment, over a seeded noisy 10 Hz record with a 2-point calibration and a one-point calibration.
+        var random = new Random(5);
+        var (t, r) = ThermalProfiles.Sample(0, 86_400, 0.1, s => 610 + 3 * Math.Sin(s / 900) + 0.2 * (random.NextDouble() - 0.5) + (s % 7200 is > 3000 and < 3100 ? 12 : 0));
+        var d = new ArrheniusDiffusivity(1e-3, 1.0);
+        foreach (TemperatureCalibration calibration in new[]
+        {
+            TemperatureCalibration.FromReference(560, 580),
+            new TemperatureCalibration([new CalibrationPoint(500, 505), new CalibrationPoint(650, 672)]),
+        })
+        {
+            double reference = 0;
+            for (int i = 1; i < t.Length; i++)
+            {
+                reference += ThermalIntegrator.SegmentIntegralS(t[i] - t[i - 1], calibration.ToTrueC(r[i - 1]) + 273.15, calibration.ToTrueC(r[i]) + 273.15, d.ActivationTemperatureK);
+            }
+            reference *= d.D0CmSqPerS;
+            double actual = ThermalIntegrator.Integrate(t, r, calibration, d, 0, 86_400, 10).IntegralCmSq;
+            Assert.True(Math.Abs(actual / reference - 1) < 1e-12, $"{actual} vs {reference}, relative {actual / reference - 1}");
+        }
     }
 
     [Fact]
