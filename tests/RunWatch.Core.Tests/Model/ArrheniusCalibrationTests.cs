@@ -76,4 +76,15 @@ public sealed class ArrheniusCalibrationTests
         var ex = Assert.Throws<ArgumentException>(() => ArrheniusCalibration.Fit(points));
         Assert.Contains("BAD", ex.Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Fit_TwoPoints_PassesThroughBothWithNaNIntervals()
+    {
+        // DERIVED: two points determine the line exactly; no residual degrees of freedom remain for an interval.
+        ArrheniusFit fit = ArrheniusCalibration.Fit([Point("A", 1.3, 0.2, 850, 1800, 4), Point("B", 1.3, 0.2, 900, 1800, 4)]);
+        Assert.Equal(1.3, fit.ActivationEnergy.Value, 9);
+        Assert.Equal(0.2, fit.Prefactor.Value, 8);
+        Assert.True(double.IsNaN(fit.ActivationEnergy.StandardError));
+        Assert.False(fit.ActivationEnergy.IntervalContains(1.3));
+    }
 }
