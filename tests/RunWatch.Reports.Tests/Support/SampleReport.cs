@@ -56,14 +56,13 @@ internal static class SampleReport
 
         var statistics = WireStatistics.From(wires, 3 * FieldNm * FieldNm * 1e-14);
         ThermalSummary thermal = Thermal();
-        var input = new WaferQcInput(waferId, "nw-gaas-std", statistics.Count, statistics.MeanRadiusNm, statistics.RadiusCv, statistics.DensityPerCm2,
-            statistics.VerticalYield, comparison.BiasNm, thermal.Excursions.Count, thermal.Excursions.Max(e => Math.Abs(e.RelativeLChange)), thermal.CoverageFraction);
-        QcVerdict verdict = QcEvaluator.Evaluate(input, spec ?? Spec());
-
         var identity = new ReportIdentity(waferId, "R-DEMO-0412", "nw-gaas-std", "demo-chamber-1",
             new DateTimeOffset(2026, 3, 4, 9, 0, 0, TimeSpan.Zero), new DateTimeOffset(2026, 3, 4, 10, 10, 0, TimeSpan.Zero),
             new DateTimeOffset(2026, 3, 6, 14, 30, 0, TimeSpan.Zero), "0.1.0-test", DataLabel,
             note is null ? ["substrate loaded by the demo operator"] : [note]);
+        WaferQcInput input = QcInputs.From(identity, statistics, thermal, comparison);
+        QcVerdict verdict = QcEvaluator.Evaluate(input, spec ?? Spec());
+
         return new WaferReport(identity, thermal, fields, wires, statistics, model, 420, prediction, comparison, verdict);
     }
 
