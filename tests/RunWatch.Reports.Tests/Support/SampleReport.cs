@@ -66,6 +66,17 @@ internal static class SampleReport
         return new WaferReport(identity, thermal, fields, wires, statistics, model, 420, prediction, comparison, verdict);
     }
 
+    /// <summary>A report with almost nothing in it: no wires, fields, model, prediction or thermal samples.</summary>
+    public static WaferReport Empty(string waferId = "W-DEMO-EMPTY")
+    {
+        var identity = new ReportIdentity(waferId, "R-DEMO-0000", "nw-gaas-std", "demo-chamber-1", DateTimeOffset.UnixEpoch, null, DateTimeOffset.UnixEpoch, "0.1.0-test", DataLabel, []);
+        var thermal = new ThermalSummary([], [], null, 0, 0, [], double.NaN, double.NaN, double.NaN, 1, 0, "no record");
+        var statistics = new WireStatistics(0, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, 0, double.NaN);
+        var input = new WaferQcInput(waferId, "nw-gaas-std", 0, null, null, null, null, null, 0, 0, 0);
+        QcVerdict verdict = QcEvaluator.Evaluate(input, Spec());
+        return new WaferReport(identity, thermal, [], [], statistics, null, 400, null, null, verdict);
+    }
+
     public static QcSpecification Spec() => new()
     {
         TargetMeanRadiusNm = 45,
