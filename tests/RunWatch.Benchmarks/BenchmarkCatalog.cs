@@ -6,5 +6,6 @@ internal static class BenchmarkCatalog
     public static IReadOnlyList<IBenchmark> All { get; } =
     [
         new CaptureZoneBenchmark(),
+        new ThermalBenchmark(),
     ];
 }
