@@ -8,7 +8,7 @@ namespace RunWatch.Core.Model;
 public static class ArrheniusCalibration
 {
     /// <summary>kB in eV/K, computed from the exact SI defining constants (1.380649e-23 J/K ÷ 1.602176634e-19 C).</summary>
-    public const double BoltzmannEvPerK = 1.380649e-23 / 1.602176634e-19;
+    public const double BoltzmannEvPerK = Thermal.PhysicalConstants.BoltzmannEvPerK;
 
     private const double CentimetresPerNanometre = 1e-7;
 

@@ -38,6 +38,8 @@ public sealed class ArrheniusCalibrationTests
         Assert.Equal(0.5, fit.Prefactor.Value, 8);
         Assert.Equal(["W1", "W2", "W3", "W4"], fit.WaferIds);
         Assert.Equal(0.5 * Math.Exp(-1.2 / (ArrheniusCalibration.BoltzmannEvPerK * 880)), fit.Diffusivity(880), 1e-20);
+        // The thermal room's diffusivity from the fitted parameters gives the same D(T).
+        Assert.Equal(fit.Diffusivity(880), fit.ToDiffusivity().DiffusivityCmSqPerS(880), fit.Diffusivity(880) * 1e-12);
     }
 
     [Fact]
