@@ -10,10 +10,10 @@ public sealed class RecentDensityTests
     [Fact]
     public void Median_TakesMostRecentWafersOnly()
     {
-        // DERIVED by hand: the three newest are days 5, 4, 3 → densities 3e8, 9e8, 2e8 → median 3e8.
+        // DERIVED by hand: the three newest are days 5, 4, 3 → densities 3e8, 9e8, 2e8 → median 3e8; the two newest (3e8, 9e8) → 6e8.
         WaferDensity[] history = [W(1, 1e7), W(3, 2e8), W(5, 3e8), W(2, 1e7), W(4, 9e8)];
         Assert.Equal(3e8, RecentDensity.Median(history, 3));
-        Assert.Equal(2.5e8, RecentDensity.Median(history, 2));
+        Assert.Equal(6e8, RecentDensity.Median(history, 2));
     }
 
     [Fact]
