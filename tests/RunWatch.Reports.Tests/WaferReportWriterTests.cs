@@ -71,4 +71,22 @@ public sealed class WaferReportWriterTests
         Assert.All([files.HtmlPath, files.PdfPath, files.CsvPath, files.JsonPath], p => Assert.Equal(folder.Path, Path.GetDirectoryName(p)));
         Assert.DoesNotContain(Directory.GetFiles(folder.Path), p => p.Contains(".tmp-", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void WriteAll_EmptyReport_StillWritesEveryFileWithTheFailVerdict()
+    {
+        // Bad or missing input must not lose the report: an analysis that found nothing still gets its verdict on paper.
+        using var folder = new TempFolder();
+        var report = SampleReport.Empty();
+        Assert.Equal(QcOutcome.Fail, report.Verdict.Outcome);
+
+        ReportFiles files = WaferReportWriter.WriteAll(report, folder.Path);
+
+        string text = PopplerText.Text(files.PdfPath);
+        Assert.Contains("W-DEMO-EMPTY", text, StringComparison.Ordinal);
+        Assert.Contains("Verdict: FAIL", text, StringComparison.Ordinal);
+        Assert.Contains("No accepted radius model", text, StringComparison.Ordinal);
+        Assert.Single(Support.CsvParser.Parse(File.ReadAllText(files.CsvPath)));
+        Assert.Equal(QcOutcome.Fail, RunWatch.Reports.Json.JsonSummaryWriter.Read(File.ReadAllText(files.JsonPath)).Verdict.Outcome);
+    }
 }

@@ -19,6 +19,9 @@ public sealed record ArrheniusFit(
     double ResidualStandardError,
     IReadOnlyList<string> WaferIds)
 {
+    /// <summary>The fitted parameters in the thermal physics' form, for L_eff once a person has accepted them.</summary>
+    public Thermal.ArrheniusDiffusivity ToDiffusivity() => new(Prefactor.Value, ActivationEnergy.Value);
+
     /// <summary>D(T) in cm²/s from the fitted parameters.</summary>
     public double Diffusivity(double temperatureK) =>
         Prefactor.Value * Math.Exp(-ActivationEnergy.Value / (ArrheniusCalibration.BoltzmannEvPerK * temperatureK));

@@ -9,7 +9,7 @@ namespace RunWatch.Core.Model;
 /// <param name="CreatedAt">When the fit was computed.</param>
 /// <param name="WaferIds">Every wafer whose wires or best-fit L went into the fit.</param>
 /// <param name="RadiusModel">Both radius fits and the selected one, or null when only Arrhenius was refitted.</param>
-/// <param name="CaptureRadiusNm">L used for the radius fit's Â (nm), or null.</param>
+/// <param name="CaptureRadii">Each wafer's best-fit capture radius; the radius fit used every wafer's Â at its own L.</param>
 /// <param name="Arrhenius">Arrhenius fit across wafers, or null.</param>
 /// <param name="Note">Free text from the person or job that requested the fit.</param>
 public sealed record CalibrationRecord(
@@ -18,6 +18,6 @@ public sealed record CalibrationRecord(
     DateTimeOffset CreatedAt,
     IReadOnlyList<string> WaferIds,
     RadiusModelComparison? RadiusModel,
-    double? CaptureRadiusNm,
+    IReadOnlyList<WaferCaptureRadius> CaptureRadii,
     ArrheniusFit? Arrhenius,
     string? Note);

@@ -11,6 +11,19 @@ public sealed record PowerLawFitOptions
     /// <value>1e-12</value>
     public double RelativeStepTolerance { get; init; } = 1e-12;
 
+    /// <summary>Throws <see cref="ArgumentException"/> when a setting is out of range.</summary>
+    public void Validate()
+    {
+        if (MaxIterations < 1)
+        {
+            throw new ArgumentException($"MaxIterations must be ≥ 1; got {MaxIterations}.");
+        }
+        if (!(RelativeStepTolerance > 0) || !double.IsFinite(RelativeStepTolerance))
+        {
+            throw new ArgumentException($"RelativeStepTolerance must be a positive number; got {RelativeStepTolerance}.");
+        }
+    }
+
     /// <summary>The default options.</summary>
     public static PowerLawFitOptions Default { get; } = new();
 }

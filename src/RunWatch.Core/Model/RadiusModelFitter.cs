@@ -40,6 +40,7 @@ public static class RadiusModelFitter
     public static RadiusModelFit FitPowerLaw(ReadOnlySpan<double> normalisedAreas, ReadOnlySpan<double> radiiNm, PowerLawFitOptions? options = null)
     {
         options ??= PowerLawFitOptions.Default;
+        options.Validate();
         int n = normalisedAreas.Length;
         if (radiiNm.Length != n)
         {

@@ -160,7 +160,7 @@ public static class QcEvaluator
         new(rule, description, null, limit, warnLimit, unit, outcome, $"{description}: not measured, so the rule could not be checked");
 
     private static string Window(double? min, double? max) =>
-        F("{0} … {1}", min is { } a ? a.ToString("0.00e+0", CultureInfo.InvariantCulture) : "−∞", max is { } b ? b.ToString("0.00e+0", CultureInfo.InvariantCulture) : "∞");
+        F("{0} … {1}", min is { } a ? a.ToString("0.##e+0", CultureInfo.InvariantCulture) : "−∞", max is { } b ? b.ToString("0.##e+0", CultureInfo.InvariantCulture) : "∞");
 
     private static string N(double value, string format) => value.ToString(format, CultureInfo.InvariantCulture);
 

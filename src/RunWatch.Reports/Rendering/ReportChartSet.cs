@@ -10,7 +10,7 @@ internal sealed record ReportChartSet(ReportChart Thermal, ReportChart Histogram
         bool anyPrediction = report.Wires.Any(w => double.IsFinite(w.PredictedRadiusNm));
         return new ReportChartSet(
             ReportCharts.Thermal(report.Thermal),
-            ReportCharts.RadiusHistogram(report.Wires),
+            ReportCharts.RadiusHistogram(report.Wires, report.Prediction),
             ReportCharts.RadiusVersusArea(report.Wires, report.Model, report.CaptureRadiusNm),
             anyPrediction ? ReportCharts.PredictedVersusMeasured(report.Wires) : null);
     }

@@ -1,4 +1,5 @@
 using RunWatch.Core.Model;
+using RunWatch.Core.Model.Prediction;
 using RunWatch.Reports.Model;
 using ScottPlot;
 
@@ -52,10 +53,21 @@ internal static class ReportCharts
         return Render(plot, "Thermal record");
     }
 
-    /// <summary>Histogram of measured radii (bin count by the square-root rule, at most 30).</summary>
-    public static ReportChart RadiusHistogram(IReadOnlyList<WireRow> wires)
+    /// <summary>
+    /// Histogram of measured radii (bin count by the square-root rule, 5 to 30), with the before-SEM prediction's
+    /// 5–95 % band and mean when there is one.
+    /// </summary>
+    public static ReportChart RadiusHistogram(IReadOnlyList<WireRow> wires, RadiusPrediction? prediction = null)
     {
         using Plot plot = NewPlot();
+        if (prediction is not null)
+        {
+            var band = plot.Add.HorizontalSpan(prediction.P05Nm, prediction.P95Nm);
+            band.FillStyle.Color = Colors.OrangeRed.WithAlpha(0.12);
+            band.LineStyle.Width = 0;
+            band.LegendText = "predicted 5–95 %";
+            plot.ShowLegend(Alignment.UpperLeft);
+        }
         double min = double.PositiveInfinity;
         double max = double.NegativeInfinity;
         foreach (WireRow w in wires)
@@ -79,6 +91,15 @@ internal static class ReportCharts
             }
             plot.Add.Bars(bars);
             plot.Axes.Margins(bottom: 0);
+        }
+        if (prediction is not null)
+        {
+            // Drawn after the bars so the line stays visible over them.
+            var mean = plot.Add.VerticalLine(prediction.MeanRadiusNm);
+            mean.Color = Colors.OrangeRed;
+            mean.LinePattern = LinePattern.Dashed;
+            mean.LineWidth = 2;
+            mean.LegendText = "predicted mean";
         }
         plot.XLabel("radius (nm)");
         plot.YLabel("wires");

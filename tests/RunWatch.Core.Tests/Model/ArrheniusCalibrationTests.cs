@@ -38,6 +38,8 @@ public sealed class ArrheniusCalibrationTests
         Assert.Equal(0.5, fit.Prefactor.Value, 8);
         Assert.Equal(["W1", "W2", "W3", "W4"], fit.WaferIds);
         Assert.Equal(0.5 * Math.Exp(-1.2 / (ArrheniusCalibration.BoltzmannEvPerK * 880)), fit.Diffusivity(880), 1e-20);
+        // The thermal room's diffusivity from the fitted parameters gives the same D(T).
+        Assert.Equal(fit.Diffusivity(880), fit.ToDiffusivity().DiffusivityCmSqPerS(880), fit.Diffusivity(880) * 1e-12);
     }
 
     [Fact]
@@ -75,5 +77,16 @@ public sealed class ArrheniusCalibrationTests
         ArrheniusPoint[] points = [Point("A", 1, 1, 873, 1000, 1), new ArrheniusPoint("BAD", 0, 1000, 880, 1), Point("C", 1, 1, 893, 900, 1)];
         var ex = Assert.Throws<ArgumentException>(() => ArrheniusCalibration.Fit(points));
         Assert.Contains("BAD", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_TwoPoints_PassesThroughBothWithNaNIntervals()
+    {
+        // DERIVED: two points determine the line exactly; no residual degrees of freedom remain for an interval.
+        ArrheniusFit fit = ArrheniusCalibration.Fit([Point("A", 1.3, 0.2, 850, 1800, 4), Point("B", 1.3, 0.2, 900, 1800, 4)]);
+        Assert.Equal(1.3, fit.ActivationEnergy.Value, 9);
+        Assert.Equal(0.2, fit.Prefactor.Value, 8);
+        Assert.True(double.IsNaN(fit.ActivationEnergy.StandardError));
+        Assert.False(fit.ActivationEnergy.IntervalContains(1.3));
     }
 }

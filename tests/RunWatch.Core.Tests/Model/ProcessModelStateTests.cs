@@ -10,7 +10,7 @@ public sealed class ProcessModelStateTests
     internal static CalibrationRecord Candidate(string id, string process = "nw-gaas-std")
     {
         (double[] x, double[] y) = SyntheticWafer.Make(RadiusModelKind.PowerLaw, 60, 0.5, 2, 50, id.Length);
-        return new CalibrationRecord(id, process, Noon, ["W-DEMO-1", "W-DEMO-2"], RadiusModelFitter.FitAndSelect(x, y), 420, null, "invented demo data");
+        return new CalibrationRecord(id, process, Noon, ["W-DEMO-1", "W-DEMO-2"], RadiusModelFitter.FitAndSelect(x, y), [new WaferCaptureRadius("W-DEMO-1", 420, 0.93, false, 50)], null, "invented demo data");
     }
 
     [Fact]

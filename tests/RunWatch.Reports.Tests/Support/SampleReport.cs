@@ -56,15 +56,25 @@ internal static class SampleReport
 
         var statistics = WireStatistics.From(wires, 3 * FieldNm * FieldNm * 1e-14);
         ThermalSummary thermal = Thermal();
-        var input = new WaferQcInput(waferId, "nw-gaas-std", statistics.Count, statistics.MeanRadiusNm, statistics.RadiusCv, statistics.DensityPerCm2,
-            statistics.VerticalYield, comparison.BiasNm, thermal.Excursions.Count, thermal.Excursions.Max(e => Math.Abs(e.RelativeLChange)), thermal.CoverageFraction);
-        QcVerdict verdict = QcEvaluator.Evaluate(input, spec ?? Spec());
-
         var identity = new ReportIdentity(waferId, "R-DEMO-0412", "nw-gaas-std", "demo-chamber-1",
             new DateTimeOffset(2026, 3, 4, 9, 0, 0, TimeSpan.Zero), new DateTimeOffset(2026, 3, 4, 10, 10, 0, TimeSpan.Zero),
             new DateTimeOffset(2026, 3, 6, 14, 30, 0, TimeSpan.Zero), "0.1.0-test", DataLabel,
             note is null ? ["substrate loaded by the demo operator"] : [note]);
+        WaferQcInput input = QcInputs.From(identity, statistics, thermal, comparison);
+        QcVerdict verdict = QcEvaluator.Evaluate(input, spec ?? Spec());
+
         return new WaferReport(identity, thermal, fields, wires, statistics, model, 420, prediction, comparison, verdict);
+    }
+
+    /// <summary>A report with almost nothing in it: no wires, fields, model, prediction or thermal samples.</summary>
+    public static WaferReport Empty(string waferId = "W-DEMO-EMPTY")
+    {
+        var identity = new ReportIdentity(waferId, "R-DEMO-0000", "nw-gaas-std", "demo-chamber-1", DateTimeOffset.UnixEpoch, null, DateTimeOffset.UnixEpoch, "0.1.0-test", DataLabel, []);
+        var thermal = new ThermalSummary([], [], null, 0, 0, [], double.NaN, double.NaN, double.NaN, 1, 0, "no record");
+        var statistics = new WireStatistics(0, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, 0, double.NaN);
+        var input = new WaferQcInput(waferId, "nw-gaas-std", 0, null, null, null, null, null, 0, 0, 0);
+        QcVerdict verdict = QcEvaluator.Evaluate(input, Spec());
+        return new WaferReport(identity, thermal, [], [], statistics, null, 400, null, null, verdict);
     }
 
     public static QcSpecification Spec() => new()
