@@ -6,7 +6,8 @@ namespace RunWatch.Ingest.Wafers;
 
 /// <summary>
 /// Reads the thermal figures the run tracker stored with a run (its excursion summaries and growth window) into the
-/// shapes the verdict and the report need. Times are seconds from the run's start.
+/// shapes the verdict and the report need. Times are seconds from the run's start. Every excursion is listed; only
+/// those that overlap the growth window count for the verdict (ramps and cool-down lag the setpoint by design).
 /// </summary>
 internal sealed record RunExcursions(IReadOnlyList<ExcursionRow> Rows, int? Count, double? MaxAbsRelativeLChange)
 {
@@ -19,6 +20,8 @@ internal sealed record RunExcursions(IReadOnlyList<ExcursionRow> Rows, int? Coun
         }
         var rows = new List<ExcursionRow>();
         double maxAbs = 0;
+        int inWindow = 0;
+        var (windowStart, windowEnd) = GrowthWindow(run);
         using var doc = JsonDocument.Parse(json);
         foreach (JsonElement e in doc.RootElement.EnumerateArray())
         {
@@ -26,13 +29,18 @@ internal sealed record RunExcursions(IReadOnlyList<ExcursionRow> Rows, int? Coun
             double end = Seconds(e, "end", run.StartedAt);
             double changeNm = Number(e, "lengthChangeNm");
             double rel = double.IsFinite(changeNm) && run.LEffNm is > 0 ? changeNm / run.LEffNm.Value : double.NaN;
-            maxAbs = Math.Max(maxAbs, double.IsFinite(rel) ? Math.Abs(rel) : 0);
+            bool overlaps = !(end < windowStart || start > windowEnd);
+            if (overlaps)
+            {
+                inWindow++;
+                maxAbs = Math.Max(maxAbs, double.IsFinite(rel) ? Math.Abs(rel) : 0);
+            }
             string severity = Text(e, "severity");
             bool closed = !e.TryGetProperty("closed", out JsonElement c) || c.ValueKind != JsonValueKind.False;
             rows.Add(new ExcursionRow(start, end, Number(e, "peakValueC"), Number(e, "peakDeviationK"), rel,
-                closed ? severity : severity + " (still open at run end)"));
+                (closed ? severity : severity + " (still open at run end)") + (overlaps ? ", in the growth window" : ", outside the growth window")));
         }
-        return new RunExcursions(rows, rows.Count, maxAbs);
+        return new RunExcursions(rows, inWindow, maxAbs);
     }
 
     /// <summary>Growth window from the run's summary, in seconds from the run's start; the whole run when not recorded.</summary>

@@ -45,7 +45,7 @@ public static class WaferPipelineServiceCollectionExtensions
             sp.GetRequiredService<IOptions<IntakeOptions>>().Value.FileNamePattern,
             sp.GetRequiredService<TimeProvider>(),
             sp.GetService<ILogger<FieldIntake>>()));
-        services.TryAddSingleton<WaferReportWriter>();
+        services.TryAddSingleton<WaferReportService>();
         if (runWorkers)
         {
             services.TryAddSingleton<FieldIntakeService>();

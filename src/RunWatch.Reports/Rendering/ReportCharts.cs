@@ -42,7 +42,7 @@ internal static class ReportCharts
         if (thermal.SetpointC is { } setpoint)
         {
             var sp = plot.Add.HorizontalLine(setpoint);
-            sp.LinePattern = LinePattern.Dashed;
+            sp.LinePattern = LinePattern.Solid; // solid: Skia's SVG canvas cannot draw dashes
             sp.Color = Colors.Gray;
             sp.LegendText = "setpoint";
         }
@@ -97,7 +97,7 @@ internal static class ReportCharts
             // Drawn after the bars so the line stays visible over them.
             var mean = plot.Add.VerticalLine(prediction.MeanRadiusNm);
             mean.Color = Colors.OrangeRed;
-            mean.LinePattern = LinePattern.Dashed;
+            mean.LinePattern = LinePattern.Solid; // solid: Skia's SVG canvas cannot draw dashes
             mean.LineWidth = 2;
             mean.LegendText = "predicted mean";
         }
@@ -171,7 +171,7 @@ internal static class ReportCharts
         if (xs.Count > 0)
         {
             var identity = plot.Add.Line(lo, lo, hi, hi);
-            identity.LinePattern = LinePattern.Dashed;
+            identity.LinePattern = LinePattern.Solid; // solid: Skia's SVG canvas cannot draw dashes
             identity.Color = Colors.Gray;
             identity.LegendText = "predicted = measured";
             var points = plot.Add.ScatterPoints(xs.ToArray(), ys.ToArray());

@@ -42,7 +42,7 @@ internal static class DemoCommand
             app.MapRunWatchFieldUpload();
             Console.WriteLine("RunWatch demo — invented chamber, invented process, invented SEM fields; nothing here is real data.");
             Console.WriteLine($"  data folder   {folder}");
-            Console.WriteLine($"  MQTT broker   127.0.0.1:{DemoSettings.BrokerPort} (embedded)");
+            Console.WriteLine($"  MQTT broker   127.0.0.1:{builder.Configuration.GetValue("Broker:Port", DemoSettings.BrokerPort)} (embedded)");
             await app.StartAsync(cancellationToken).ConfigureAwait(false);
             Console.WriteLine($"  health        {string.Join(", ", app.Urls)}/healthz");
             var runner = new DemoRunner(
@@ -50,6 +50,7 @@ internal static class DemoCommand
                 app.Services.GetRequiredService<IWaferStore>(),
                 app.Services.GetRequiredService<FieldIntakeService>(),
                 app.Services.GetRequiredService<RunWatch.Ingest.Health.IngestHealth>(),
+                builder.Configuration.GetValue("Broker:Port", DemoSettings.BrokerPort),
                 TimeProvider.System,
                 Console.Out);
             try

@@ -31,7 +31,7 @@ internal static class ReportCommand
             try
             {
                 await store.MigrateAsync(cancellationToken).ConfigureAwait(false);
-                WaferReportOutcome outcome = await host.Services.GetRequiredService<WaferReportWriter>().WriteAsync(waferId, cancellationToken).ConfigureAwait(false);
+                WaferReportOutcome outcome = await host.Services.GetRequiredService<WaferReportService>().WriteAsync(waferId, cancellationToken).ConfigureAwait(false);
                 Console.WriteLine($"wafer {outcome.Wafer}: verdict {outcome.Verdict.Outcome.ToString().ToUpperInvariant()}");
                 foreach (var reason in outcome.Verdict.Reasons)
                 {

@@ -11,11 +11,11 @@ namespace RunWatch.Demo;
 /// close it with its thermal figures, then drops the wafer's SEM fields into the drop folder and waits for the
 /// report. Prints where to look.
 /// </summary>
-internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, FieldIntakeService intake, IngestHealth health, TimeProvider time, TextWriter output)
+internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, FieldIntakeService intake, IngestHealth health, int brokerPort, TimeProvider time, TextWriter output)
 {
     public async Task<IReadOnlyList<WaferReportRecord>> RunAsync(CancellationToken cancellationToken)
     {
-        var publisher = new ChamberPublisher("127.0.0.1", DemoSettings.BrokerPort, "runwatch", "lab", "demo-1");
+        var publisher = new ChamberPublisher("127.0.0.1", brokerPort, "runwatch", "lab", "demo-1");
         var reports = new List<WaferReportRecord>();
         await WaitForBrokerAsync(cancellationToken).ConfigureAwait(false);
         foreach (DemoRunPlan plan in DemoSettings.Runs)
@@ -45,6 +45,7 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
                     output.WriteLine($"         {r.Format,-4} {r.FilePath}");
                 }
             }
+            await AcceptFirstModelAsync(cancellationToken).ConfigureAwait(false);
         }
         return reports;
     }
@@ -73,6 +74,25 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
         }
         output.WriteLine($"[demo] wafer {wafer}: {DemoSettings.FieldsPerWafer} SEM fields (invented) dropped into {intake.DropFolder}");
     }
+
+    /// <summary>
+    /// The first wafer's report proposes a radius model; process models are never used until a person accepts
+    /// them. The demo accepts it on behalf of its demo user so that later wafers are judged against it.
+    /// </summary>
+    private async Task AcceptFirstModelAsync(CancellationToken cancellationToken)
+    {
+        var fits = await wafers.GetModelFitsAsync("nw-demo", WaferReportService.RadiusModelName, 20, cancellationToken).ConfigureAwait(false);
+        if (fits.Count == 0 || fits.Any(f => f.AcceptedAt is not null))
+        {
+            return;
+        }
+        ModelFitRecord proposed = fits[^1];
+        await wafers.AcceptModelFitAsync(proposed.Id, DemoUser, cancellationToken).ConfigureAwait(false);
+        await store.AppendAuditAsync(new AuditEntry(time.GetUtcNow(), DemoUser, "accept-model", $"radius model {proposed.Id} of nw-demo (demo: accepted automatically)", null), cancellationToken).ConfigureAwait(false);
+        output.WriteLine($"[demo] radius model of process nw-demo fitted on {string.Join(", ", proposed.Wafers)} accepted by '{DemoUser}' (the demo does this itself; in use an engineer reviews and accepts it)");
+    }
+
+    private const string DemoUser = "demo-engineer";
 
     /// <summary>The daemon subscribes once connected; a run-start published before that would reach nobody.</summary>
     private async Task WaitForBrokerAsync(CancellationToken cancellationToken)

@@ -49,7 +49,7 @@ internal static class DemoSettings
         "--WaferPipeline:DefaultProcess=nw-demo",
         "--Serilog:MinimumLevel:Default=Warning",
         "--Serilog:WriteTo:1:Args:path=" + Path.Combine(dataFolder, "logs", "runwatch-.log"),
-        "--Qc:Recipes:nw-demo:TargetMeanRadiusNm=33",
+        "--Qc:Recipes:nw-demo:TargetMeanRadiusNm=30",
         "--Qc:Recipes:nw-demo:MeanRadiusToleranceNm=8",
         "--Qc:Recipes:nw-demo:MeanRadiusWarnToleranceNm=5",
         "--Qc:Recipes:nw-demo:MaxRadiusCv=0.35",

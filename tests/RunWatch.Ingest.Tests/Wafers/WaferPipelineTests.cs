@@ -25,7 +25,7 @@ public sealed class WaferPipelineTests : IAsyncLifetime
     private FieldIntake _intake = null!;
     private FieldAnalysisQueue _queue = null!;
     private FieldAnalysisService _analysis = null!;
-    private WaferReportWriter _reports = null!;
+    private WaferReportService _reports = null!;
 
     public async Task InitializeAsync()
     {
@@ -61,7 +61,7 @@ public sealed class WaferPipelineTests : IAsyncLifetime
         });
         _queue = new FieldAnalysisQueue(16);
         _intake = new FieldIntake(_store, _store, _queue, WaferIdResolver.DefaultPattern, TimeProvider.System);
-        _reports = new WaferReportWriter(_store, _store, pipeline, qc, storage, TimeProvider.System);
+        _reports = new WaferReportService(_store, _store, pipeline, qc, storage, TimeProvider.System);
         _analysis = new FieldAnalysisService(_queue, _store, _reports, pipeline, TimeProvider.System, NullLogger<FieldAnalysisService>.Instance);
     }
 
@@ -111,7 +111,7 @@ public sealed class WaferPipelineTests : IAsyncLifetime
             Assert.True(File.ReadAllLines(outcome.Files["csv"]).Length > 50, "every wire in the CSV");
         }
         // The run's recipe has no accepted model: the first report proposes one, never accepts it.
-        var fits = await _store.GetModelFitsAsync("invented-recipe", WaferReportWriter.RadiusModelName, 10, default);
+        var fits = await _store.GetModelFitsAsync("invented-recipe", WaferReportService.RadiusModelName, 10, default);
         Assert.NotEmpty(fits);
         Assert.All(fits, f => Assert.Null(f.AcceptedBy));
     }

@@ -6,11 +6,8 @@ using Microsoft.Extensions.Options;
 using RunWatch.Core.Excursions;
 using RunWatch.Core.Model;
 using RunWatch.Core.Qc;
-using RunWatch.Reports.Csv;
-using RunWatch.Reports.Html;
-using RunWatch.Reports.Json;
+using RunWatch.Reports;
 using RunWatch.Reports.Model;
-using RunWatch.Reports.Pdf;
 using RunWatch.Storage;
 
 namespace RunWatch.Ingest.Wafers;
@@ -19,7 +16,7 @@ namespace RunWatch.Ingest.Wafers;
 /// Gathers a wafer's run, fields and analyses from the store, evaluates it and writes its report files (HTML, PDF,
 /// CSV of every wire, JSON summary) into <c>reports/{wafer}/</c>, recording each in the store.
 /// </summary>
-public sealed class WaferReportWriter
+public sealed class WaferReportService
 {
     /// <summary>Model name under which radius models are stored per process.</summary>
     public const string RadiusModelName = "radius";
@@ -32,8 +29,8 @@ public sealed class WaferReportWriter
     private readonly TimeProvider _time;
     private readonly ILogger _logger;
 
-    public WaferReportWriter(IRunWatchStore store, IWaferStore wafers, IOptions<WaferPipelineOptions> options, IOptions<QcOptions> qc,
-        IOptions<StorageOptions> storage, TimeProvider time, ILogger<WaferReportWriter>? logger = null)
+    public WaferReportService(IRunWatchStore store, IWaferStore wafers, IOptions<WaferPipelineOptions> options, IOptions<QcOptions> qc,
+        IOptions<StorageOptions> storage, TimeProvider time, ILogger<WaferReportService>? logger = null)
     {
         _store = store;
         _wafers = wafers;
@@ -127,7 +124,7 @@ public sealed class WaferReportWriter
         }
         var report = new WaferReport(
             new ReportIdentity(wafer, run?.Name ?? "unknown run", recipe, run?.Chamber ?? "unknown chamber", run?.StartedAt ?? record.CreatedAt,
-                run?.EndedAt, _time.GetUtcNow(), typeof(WaferReportWriter).Assembly.GetName().Version?.ToString() ?? "dev", DataLabel(run), notes),
+                run?.EndedAt, _time.GetUtcNow(), typeof(WaferReportService).Assembly.GetName().Version?.ToString() ?? "dev", DataLabel(run), notes),
             thermal,
             thumbnails,
             evaluation.Wires,
@@ -138,20 +135,15 @@ public sealed class WaferReportWriter
             evaluation.Comparison,
             evaluation.Verdict);
 
-        Directory.CreateDirectory(folder);
-        string stem = SafeFolderName(wafer);
+        ReportFiles written = await Task.Run(() => RunWatch.Reports.WaferReportWriter.WriteAll(report, folder), cancellationToken).ConfigureAwait(false);
         var files = new Dictionary<string, string>(StringComparer.Ordinal)
         {
-            ["html"] = Path.Combine(folder, stem + ".html"),
-            ["pdf"] = Path.Combine(folder, stem + ".pdf"),
-            ["csv"] = Path.Combine(folder, stem + "-wires.csv"),
-            ["json"] = Path.Combine(folder, stem + "-summary.json"),
+            ["html"] = written.HtmlPath,
+            ["pdf"] = written.PdfPath,
+            ["csv"] = written.CsvPath,
+            ["json"] = written.JsonPath,
         };
-        await WriteAtomicAsync(files["html"], System.Text.Encoding.UTF8.GetBytes(HtmlReportWriter.Write(report)), cancellationToken).ConfigureAwait(false);
-        await WriteAtomicAsync(files["pdf"], PdfReportWriter.Write(report), cancellationToken).ConfigureAwait(false);
-        await WriteAtomicAsync(files["csv"], System.Text.Encoding.UTF8.GetBytes(WireCsvWriter.Write(report)), cancellationToken).ConfigureAwait(false);
-        string summary = JsonSummaryWriter.Write(report);
-        await WriteAtomicAsync(files["json"], System.Text.Encoding.UTF8.GetBytes(summary), cancellationToken).ConfigureAwait(false);
+        string summary = await File.ReadAllTextAsync(written.JsonPath, cancellationToken).ConfigureAwait(false);
         string verdict = evaluation.Verdict.Outcome.ToString().ToLowerInvariant();
         foreach (var (format, path) in files)
         {
@@ -165,18 +157,8 @@ public sealed class WaferReportWriter
     public static string OverlayPath(string waferFolder, long fieldId) =>
         Path.Combine(waferFolder, "fields", "field-" + fieldId.ToString(CultureInfo.InvariantCulture) + "-overlay.png");
 
-    /// <summary>Folder and file stem for a wafer id: only letters, digits, '-', '_' and '.' survive, never a path.</summary>
-    public static string SafeFolderName(string wafer)
-    {
-        Span<char> buffer = stackalloc char[Math.Min(wafer.Length, 64)];
-        for (int i = 0; i < buffer.Length; i++)
-        {
-            char c = wafer[i];
-            buffer[i] = char.IsAsciiLetterOrDigit(c) || c is '-' or '_' ? c : '_';
-        }
-        string name = new(buffer);
-        return name.Length == 0 || name.Trim('_').Length == 0 ? "wafer" : name;
-    }
+    /// <summary>Folder name for a wafer id: the report writer's safe file name, never a path.</summary>
+    public static string SafeFolderName(string wafer) => RunWatch.Reports.WaferReportWriter.SafeFileName(wafer);
 
     private async Task<RadiusModelFit?> AcceptedModelAsync(string process, CancellationToken cancellationToken)
     {
@@ -242,10 +224,4 @@ public sealed class WaferReportWriter
     private static WireStatistics EmptyStatistics(WaferEvaluation e) =>
         new(e.Wires.Count, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, 0, double.NaN);
 
-    private static async Task WriteAtomicAsync(string path, byte[] bytes, CancellationToken cancellationToken)
-    {
-        string temp = path + ".tmp";
-        await File.WriteAllBytesAsync(temp, bytes, cancellationToken).ConfigureAwait(false);
-        File.Move(temp, path, overwrite: true);
-    }
 }
