@@ -21,6 +21,12 @@ public sealed class WaferReportService
     /// <summary>Model name under which radius models are stored per process.</summary>
     public const string RadiusModelName = "radius";
 
+    /// <summary>Model name of a wafer's best-fit capture radius, one point of the Arrhenius calibration.</summary>
+    public const string CaptureRadiusModelName = "capture-radius";
+
+    /// <summary>Model name of a process's Arrhenius calibration (Ea, D0).</summary>
+    public const string ArrheniusModelName = "arrhenius";
+
     private readonly IRunWatchStore _store;
     private readonly IWaferStore _wafers;
     private readonly WaferPipelineOptions _options;
@@ -108,6 +114,23 @@ public sealed class WaferReportService
                 ParamsJson = ModelJson.Serialize(evaluation.Model),
                 RSquared = evaluation.Model.RSquared,
                 RmseNm = evaluation.Model.RmseNm,
+                Wafers = [wafer],
+            }, cancellationToken).ConfigureAwait(false);
+        }
+
+        if (evaluation.BestCaptureRadius is { } best && run?.TEffC is { } tEffC)
+        {
+            // One point of the process's Arrhenius calibration: this wafer's best-fit capture radius at its T_eff.
+            var (windowStart, windowEnd) = RunExcursions.GrowthWindow(run);
+            var point = new ArrheniusPoint(wafer, best.CaptureRadiusNm, windowEnd - windowStart, tEffC + 273.15, RunExcursions.ConventionFactor(run));
+            await _wafers.SaveModelFitAsync(new ModelFitRecord
+            {
+                Process = process,
+                Model = CaptureRadiusModelName,
+                FittedAt = _time.GetUtcNow(),
+                ParamsJson = ModelJson.Serialize(point),
+                RSquared = best.Fit.RSquared,
+                RmseNm = best.Fit.RmseNm,
                 Wafers = [wafer],
             }, cancellationToken).ConfigureAwait(false);
         }

@@ -47,6 +47,13 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
             }
             await AcceptFirstModelAsync(cancellationToken).ConfigureAwait(false);
         }
+        var calibration = await new ProcessCalibrationService(wafers, time).ProposeAsync("nw-demo", cancellationToken).ConfigureAwait(false);
+        if (calibration is { } c)
+        {
+            output.WriteLine($"[demo] Arrhenius calibration proposed from {c.Fit.Count} wafers ({string.Join(", ", c.Fit.WaferIds)}): "
+                + $"Ea = {c.Fit.ActivationEnergy.Value:0.###} eV, D0 = {c.Fit.Prefactor.Value:0.###e+0} cm²/s on the demo's accelerated clock "
+                + $"(the demo chamber was configured with {DemoSettings.EaEv} eV and {DemoSettings.D0CmSqPerS * DemoSettings.Acceleration:0.###e+0} cm²/s); it waits for a person to accept it");
+        }
         return reports;
     }
 
