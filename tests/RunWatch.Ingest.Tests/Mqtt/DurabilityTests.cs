@@ -83,19 +83,7 @@ public sealed class DurabilityTests(Xunit.Abstractions.ITestOutputHelper output)
         Assert.Equal(2 * PerPhase, daemon.Scalar("SELECT COUNT(DISTINCT seq) FROM samples"));
     }
 
-    private static Dictionary<string, string> ServeSettings(int brokerPort, string folder)
-    {
-        var settings = new Dictionary<string, string>(StringComparer.Ordinal);
-        foreach (var (key, value) in InProcessDaemon.Settings(brokerPort, folder))
-        {
-            settings[key] = value!;
-        }
-        settings["Broker:ClientId"] = "runwatch-crash-test";
-        settings["ChambersFile"] = Path.Combine(folder, "no-chambers-file.json");
-        settings["Storage:Synchronous"] = "Full";
-        settings["Serilog:WriteTo:1:Args:path"] = Path.Combine(folder, "logs", "runwatch-.log");
-        return settings;
-    }
+    private static Dictionary<string, string> ServeSettings(int brokerPort, string folder) => DaemonSettings.ForServe(brokerPort, folder, "runwatch-crash-test");
 
     private static long Count(string database)
     {
