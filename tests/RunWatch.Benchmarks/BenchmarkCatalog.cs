@@ -8,5 +8,6 @@ internal static class BenchmarkCatalog
         new ImagingBenchmark(),
         new CaptureZoneBenchmark(),
         new ThermalBenchmark(),
+        new IngestBenchmark(),
     ];
 }

@@ -25,7 +25,7 @@ internal sealed class IngestMetrics
         CommitSeconds = factory.CreateHistogram("runwatch_ingest_batch_commit_seconds", "Time to write one batch in one transaction.",
             new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(0.0005, 2, 14) });
         SampleLagSeconds = factory.CreateHistogram("runwatch_ingest_commit_lag_seconds", "Commit time minus the sample's own time (publisher clock), per stored sample.",
-            new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(0.001, 1.5, 24) });
+            new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(0.001, 1.25, 40) });
         BatchMessages = factory.CreateHistogram("runwatch_ingest_batch_messages", "Messages per committed batch.",
             new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(1, 2, 12) });
         QueueDepth = factory.CreateGauge("runwatch_ingest_queue_depth", "Messages waiting for the committer.");

@@ -4,6 +4,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Prometheus;
 using RunWatch.Ingest.Health;
+using RunWatch.Testing.Mqtt;
 
 namespace RunWatch.Ingest.Tests.Support;
 
@@ -26,30 +27,7 @@ internal sealed class InProcessDaemon : IAsyncDisposable
 
     public IngestHealth Health => _host.Services.GetRequiredService<IngestHealth>();
 
-    public static Dictionary<string, string?> Settings(int brokerPort, string folder) => new()
-    {
-        ["Broker:Mode"] = "External",
-        ["Broker:Host"] = "127.0.0.1",
-        ["Broker:Port"] = brokerPort.ToString(System.Globalization.CultureInfo.InvariantCulture),
-        ["Broker:ClientId"] = "runwatch-test-" + Path.GetFileName(folder),
-        ["Broker:ReconnectInitialDelay"] = "00:00:00.200",
-        ["Broker:ReconnectMaxDelay"] = "00:00:01",
-        ["Storage:DataDirectory"] = folder,
-        ["Storage:Synchronous"] = "Normal",
-        ["Chambers:0:Name"] = "C1",
-        ["Chambers:0:Site"] = "lab",
-        ["Chambers:0:Channels:0:Name"] = "substrate_tc",
-        ["Chambers:0:Channels:0:Role"] = "GrowthTemperature",
-        ["Chambers:0:Channels:0:Unit"] = "degC",
-        ["Chambers:0:Channels:0:Min"] = "-50",
-        ["Chambers:0:Channels:0:Max"] = "1200",
-        ["Chambers:0:Channels:1:Name"] = "substrate_sp",
-        ["Chambers:0:Channels:1:Role"] = "Setpoint",
-        ["Chambers:0:Channels:1:Unit"] = "degC",
-        ["Chambers:0:Channels:2:Name"] = "ga_shutter",
-        ["Chambers:0:Channels:2:Role"] = "GrowthShutter",
-        ["Chambers:0:Channels:2:Unit"] = "1",
-    };
+    public static Dictionary<string, string?> Settings(int brokerPort, string folder) => DaemonSettings.ForTestChamber(brokerPort, folder);
 
     public static async Task<InProcessDaemon> StartAsync(int brokerPort, Action<Dictionary<string, string?>>? configure = null)
     {
