@@ -1,0 +1,35 @@
+using System.Globalization;
+
+namespace RunWatch.Web.Components.Shared;
+
+/// <summary>Number formatting with units, invariant culture (a lab's screens should read the same everywhere).</summary>
+public static class Units
+{
+    public static string Celsius(double? value) => value is { } v && double.IsFinite(v) ? v.ToString("F1", CultureInfo.InvariantCulture) + " °C" : "— °C";
+
+    public static string Kelvin(double value) => value.ToString("+0.0;−0.0;0.0", CultureInfo.InvariantCulture) + " K";
+
+    public static string Nm(double value) => value.ToString("F1", CultureInfo.InvariantCulture) + " nm";
+
+    public static string Number(double value, string format, string unit) =>
+        value.ToString(format, CultureInfo.InvariantCulture) + (unit.Length > 0 ? " " + unit : "");
+
+    public static string Duration(TimeSpan span) =>
+        span.TotalHours >= 1 ? string.Create(CultureInfo.InvariantCulture, $"{(int)span.TotalHours} h {span.Minutes:D2} min")
+        : string.Create(CultureInfo.InvariantCulture, $"{span.Minutes} min {span.Seconds:D2} s");
+
+    public static string Value(double value, string channel)
+    {
+        string unit = UnitOf(channel);
+        return value.ToString(unit == "" ? "G6" : "F1", CultureInfo.InvariantCulture) + (unit == "" ? "" : " " + unit);
+    }
+
+    /// <summary>Unit from the channel-name suffix convention (_tc, _sp in °C; _sccm; _pa; flags without unit).</summary>
+    public static string UnitOf(string channel) => channel switch
+    {
+        _ when channel.EndsWith("_tc", StringComparison.Ordinal) || channel.EndsWith("_sp", StringComparison.Ordinal) => "°C",
+        _ when channel.EndsWith("_sccm", StringComparison.Ordinal) => "sccm",
+        _ when channel.EndsWith("_pa", StringComparison.Ordinal) => "Pa",
+        _ => "",
+    };
+}
