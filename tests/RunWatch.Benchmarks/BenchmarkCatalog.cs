@@ -5,5 +5,6 @@ internal static class BenchmarkCatalog
 {
     public static IReadOnlyList<IBenchmark> All { get; } =
     [
+        new DashboardBenchmark(),
     ];
 }
