@@ -27,6 +27,14 @@ public sealed class DashboardOptions
     /// <value>250 ms.</value>
     public TimeSpan LiveRedrawInterval { get; set; } = TimeSpan.FromMilliseconds(250);
 
+    /// <summary>Deviation from setpoint at which the chart's warning band ends, in kelvin.</summary>
+    /// <value>3 K.</value>
+    public double WarningBandK { get; set; } = 3;
+
+    /// <summary>Deviation from setpoint at which the chart's alarm band ends, in kelvin.</summary>
+    /// <value>8 K.</value>
+    public double AlarmBandK { get; set; } = 8;
+
     /// <summary>Longest shelving an engineer may choose.</summary>
     /// <value>24 hours.</value>
     public TimeSpan MaxShelveDuration { get; set; } = TimeSpan.FromHours(24);
