@@ -35,6 +35,9 @@ public sealed class DashboardOptions
     /// <value>8 K.</value>
     public double AlarmBandK { get; set; } = 8;
 
+    /// <summary>Parameters of the planner's built-in model.</summary>
+    public PlannerOptions Planner { get; set; } = new();
+
     /// <summary>Longest shelving an engineer may choose.</summary>
     /// <value>24 hours.</value>
     public TimeSpan MaxShelveDuration { get; set; } = TimeSpan.FromHours(24);

@@ -83,6 +83,25 @@ public static partial class DashboardHostingExtensions
         return builder;
     }
 
+    /// <summary>
+    /// Registers the dashboard's data over the daemon's store: <see cref="Data.Store.StoreDashboardData"/> for the
+    /// queries and commands (needs <see cref="Storage.IRunWatchStore"/> and <see cref="Storage.IAlertCommands"/>), and
+    /// the built-in planner with the parameters of RunWatch:Dashboard:Planner unless a planner is registered already.
+    /// </summary>
+    public static IServiceCollection AddRunWatchDashboardStoreData(this IServiceCollection services)
+    {
+        ArgumentNullException.ThrowIfNull(services);
+        services.TryAddSingleton<Data.Store.StoreDashboardData>();
+        services.TryAddSingleton<Data.IDashboardQueries>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
+        services.TryAddSingleton<Data.IDashboardCommands>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
+        services.TryAddSingleton<Data.IPlannerEngine>(sp =>
+        {
+            var p = sp.GetRequiredService<IOptions<DashboardOptions>>().Value.Planner;
+            return new Data.InMemory.ScenarioPlanner(p.D0CmSquaredPerSecond, p.ActivationEnergyEv, p.RadiusInterceptNm, p.RadiusSlopeNm);
+        });
+        return services;
+    }
+
     /// <summary>Adds the middleware, the pages, the login endpoints, the REST API under /api and /openapi/v1.json.</summary>
     public static WebApplication MapRunWatchDashboard(this WebApplication app)
     {
