@@ -115,4 +115,22 @@ public sealed class DashboardBrowserTests(BrowserFixture fixture) : IClassFixtur
         await page.GotoAsync(fixture.Host.BaseUrl + "/login");
         await fixture.ScreenshotAsync(page, "login");
     }
+
+    [Fact]
+    public async Task Api_WithoutLogin_401_WithLogin_OpenApiListsEndpoints()
+    {
+        await using var anonymous = await fixture.Context.Browser!.NewContextAsync();
+        var refused = await anonymous.APIRequest.GetAsync(fixture.Host.BaseUrl + "/api/runs");
+        Assert.Equal(401, refused.Status);
+
+        var page = await fixture.LoginAsync("test-viewer");
+        var runs = await page.APIRequest.GetAsync(fixture.Host.BaseUrl + "/api/runs");
+        Assert.Equal(200, runs.Status);
+        Assert.Contains("\"runId\":\"R-2030\"", await runs.TextAsync(), StringComparison.Ordinal);
+        var openApi = await page.APIRequest.GetAsync(fixture.Host.BaseUrl + "/openapi/v1.json");
+        string document = await openApi.TextAsync();
+        Assert.Equal(200, openApi.Status);
+        Assert.Contains("/api/alerts/{alertId}/acknowledge", document, StringComparison.Ordinal);
+        Assert.Contains("/api/wafers/{waferId}/reports/{format}", document, StringComparison.Ordinal);
+    }
 }

@@ -18,6 +18,24 @@ public static class Units
         span.TotalHours >= 1 ? string.Create(CultureInfo.InvariantCulture, $"{(int)span.TotalHours} h {span.Minutes:D2} min")
         : string.Create(CultureInfo.InvariantCulture, $"{span.Minutes} min {span.Seconds:D2} s");
 
+    /// <summary>For example 2.5 × 10⁻⁵; "—" for values that are not finite.</summary>
+    public static string Scientific(double value)
+    {
+        if (!double.IsFinite(value))
+        {
+            return "—";
+        }
+        if (value == 0)
+        {
+            return "0";
+        }
+        int exponent = (int)Math.Floor(Math.Log10(Math.Abs(value)));
+        double mantissa = value / Math.Pow(10, exponent);
+        const string Superscripts = "⁰¹²³⁴⁵⁶⁷⁸⁹";
+        string digits = string.Concat(Math.Abs(exponent).ToString(CultureInfo.InvariantCulture).Select(d => Superscripts[d - '0']));
+        return mantissa.ToString("0.##", CultureInfo.InvariantCulture) + " × 10" + (exponent < 0 ? "⁻" : "") + digits;
+    }
+
     public static string Value(double value, string channel)
     {
         string unit = UnitOf(channel);
