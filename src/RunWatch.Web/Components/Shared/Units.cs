@@ -9,7 +9,7 @@ public static class Units
 
     public static string Kelvin(double value) => value.ToString("+0.0;−0.0;0.0", CultureInfo.InvariantCulture) + " K";
 
-    public static string Nm(double value) => value.ToString("F1", CultureInfo.InvariantCulture) + " nm";
+    public static string Nm(double value) => double.IsFinite(value) ? value.ToString("F1", CultureInfo.InvariantCulture) + " nm" : "— nm";
 
     public static string Number(double value, string format, string unit) =>
         value.ToString(format, CultureInfo.InvariantCulture) + (unit.Length > 0 ? " " + unit : "");
