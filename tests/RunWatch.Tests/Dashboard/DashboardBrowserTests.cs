@@ -6,7 +6,7 @@ using Xunit;
 
 namespace RunWatch.Tests.Dashboard;
 
-public sealed class DashboardBrowserTests(BrowserFixture fixture) : IClassFixture<BrowserFixture>
+public sealed class DashboardBrowserTests(BrowserFixture fixture, Xunit.Abstractions.ITestOutputHelper output) : IClassFixture<BrowserFixture>
 {
     private static readonly LocatorAssertionsToBeVisibleOptions Soon = new() { Timeout = 15_000 };
 
@@ -24,7 +24,7 @@ public sealed class DashboardBrowserTests(BrowserFixture fixture) : IClassFixtur
         fixture.Host.Notifier.SamplesCommitted([new LiveSample(InventedLabScenario.GrowingChamber, InventedLabScenario.TemperatureChannel, at, 633.3)]);
 
         await Assertions.Expect(card).ToHaveTextAsync("633.3 °C", new() { Timeout = 10_000 });
-        Console.WriteLine($"live value on screen {clock.ElapsedMilliseconds} ms after the notifier call");
+        output.WriteLine($"live value on screen {clock.ElapsedMilliseconds} ms after the notifier call");
     }
 
     [Fact]
