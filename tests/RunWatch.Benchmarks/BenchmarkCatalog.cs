@@ -9,5 +9,6 @@ internal static class BenchmarkCatalog
         new CaptureZoneBenchmark(),
         new ThermalBenchmark(),
         new IngestBenchmark(),
+        new DashboardBenchmark(),
     ];
 }
