@@ -78,6 +78,7 @@ public static partial class IngestServiceCollectionExtensions
         services.TryAddSingleton<AlertEngine>();
         services.AddSingleton<ICommittedBatchObserver>(sp => sp.GetRequiredService<RunTracker>());
         services.AddSingleton<ICommittedBatchObserver>(sp => sp.GetRequiredService<AlertEngine>());
+        services.AddSingleton<ICommittedBatchObserver, CommitListenerBridge>();
         services.AddSingleton<IDaemonConditions>(sp => sp.GetRequiredService<AlertEngine>());
         services.AddSingleton<IRunLifecycleListener>(sp => sp.GetRequiredService<AlertEngine>());
         services.TryAddSingleton<RunTracker>();
@@ -85,6 +86,7 @@ public static partial class IngestServiceCollectionExtensions
         services.TryAddSingleton<AlertDispatchService>();
         services.TryAddSingleton<IAlertCommands>(sp => sp.GetRequiredService<AlertDispatchService>());
         services.AddSingleton<IAlertSink, LogAlertSink>();
+        services.AddSingleton<IAlertSink, ListenerAlertSink>();
         services.AddSingleton<IAlertSink, MqttAlertSink>();
         services.AddSingleton<IAlertSink, WebhookAlertSink>();
         services.AddHttpClient(WebhookAlertSink.ClientName)

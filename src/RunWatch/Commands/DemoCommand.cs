@@ -4,6 +4,7 @@ using RunWatch.Demo;
 using RunWatch.Hosting;
 using RunWatch.Ingest.Wafers;
 using RunWatch.Storage;
+using RunWatch.Web.Hosting;
 
 namespace RunWatch.Commands;
 
@@ -35,16 +36,22 @@ internal static class DemoCommand
             }
             string[] args = [.. DemoSettings.Arguments(folder), .. parseResult.UnmatchedTokens];
             var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
-            builder.AddRunWatchDaemon(args);
-            builder.Services.AddRunWatchWaferPipeline(builder.Configuration);
+            builder.AddRunWatch(args);
             await using var app = builder.Build();
-            app.MapRunWatchDaemon();
-            app.MapRunWatchFieldUpload();
+            // Demo users first, so the dashboard never starts without anyone able to log in.
+            var demoUsers = app.CreateRunWatchDemoUsers();
+            app.MapRunWatch();
             Console.WriteLine("RunWatch demo — invented chamber, invented process, invented SEM fields; nothing here is real data.");
             Console.WriteLine($"  data folder   {folder}");
             Console.WriteLine($"  MQTT broker   127.0.0.1:{builder.Configuration.GetValue("Broker:Port", DemoSettings.BrokerPort)} (embedded)");
             await app.StartAsync(cancellationToken).ConfigureAwait(false);
-            Console.WriteLine($"  health        {string.Join(", ", app.Urls)}/healthz");
+            string url = app.Urls.FirstOrDefault() ?? "http://127.0.0.1:5080";
+            Console.WriteLine($"  dashboard     {url}   (log in with a demo user below)");
+            foreach (var user in demoUsers)
+            {
+                Console.WriteLine($"    demo user   {user.Name,-14} role {user.Role,-9} password {user.Password}");
+            }
+            Console.WriteLine($"  health        {url}/healthz, metrics {url}/metrics");
             var runner = new DemoRunner(
                 app.Services.GetRequiredService<IRunWatchStore>(),
                 app.Services.GetRequiredService<IWaferStore>(),

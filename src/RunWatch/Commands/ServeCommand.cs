@@ -17,9 +17,9 @@ internal static class ServeCommand
         {
             string[] args = [.. parseResult.UnmatchedTokens];
             var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = AppContext.BaseDirectory });
-            builder.AddRunWatchDaemon(args);
+            builder.AddRunWatch(args);
             await using var app = builder.Build();
-            app.MapRunWatchDaemon();
+            app.MapRunWatch();
             await app.RunAsync(cancellationToken).ConfigureAwait(false);
             return 0;
         });
