@@ -85,16 +85,15 @@ public static class GrayImageDecoder
                 $"the header claims {info.Width:N0} × {info.Height:N0} = {pixels:N0} pixels, more than the limit of {limits.MaxPixels:N0}");
         }
 
-        if (format is TiffFormat)
         {
             string? problem;
             try
             {
-                problem = TiffExtentCheck.FindProblem(stream);
+                problem = CompletenessCheck.FindProblem(stream, format.Name);
             }
             catch (EndOfStreamException)
             {
-                problem = "the image directory is cut short";
+                problem = "the file ends early (truncated)";
             }
             if (problem is not null)
             {

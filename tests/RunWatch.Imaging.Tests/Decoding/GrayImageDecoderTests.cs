@@ -53,6 +53,33 @@ public sealed class GrayImageDecoderTests : IDisposable
         Assert.Contains("cut.png", ex.Message);
     }
 
+    [Theory]
+    [InlineData("png", 0.9)]
+    [InlineData("png", 0.5)]
+    [InlineData("jpg", 0.7)]
+    [InlineData("bmp", 0.8)]
+    public void Decode_TruncatedLargerImage_SaysTruncated(string extension, double keep)
+    {
+        // A field-sized image whose decoder would otherwise fill the missing rows with zeros.
+        string path = _folder.File("field." + extension);
+        var pixels = new ushort[400 * 300];
+        var random = new Random(3);
+        for (int i = 0; i < pixels.Length; i++)
+        {
+            pixels[i] = (ushort)random.Next(0, 65536);
+        }
+        using (var image = SixLabors.ImageSharp.Image.LoadPixelData<SixLabors.ImageSharp.PixelFormats.L16>(
+            System.Runtime.InteropServices.MemoryMarshal.Cast<ushort, SixLabors.ImageSharp.PixelFormats.L16>(pixels.AsSpan()), 400, 300))
+        {
+            SixLabors.ImageSharp.ImageExtensions.Save(image, path);
+        }
+        byte[] bytes = File.ReadAllBytes(path);
+        File.WriteAllBytes(path, bytes[..(int)(bytes.Length * keep)]);
+        var ex = Assert.Throws<ImageDecodeException>(() => GrayImageDecoder.Decode(path));
+        Assert.Equal(ImageDecodeFailure.Corrupt, ex.Failure);
+        Assert.Contains("truncated", ex.Message);
+    }
+
     [Fact]
     public void Decode_TruncatedTiff_SaysDamaged()
     {
