@@ -115,11 +115,15 @@ public static class GrayImageDecoder
                 ReadOnlySpan<L16> row = image.DangerousGetPixelRowMemory(y).Span;
                 MemoryMarshal.Cast<L16, ushort>(row).CopyTo(buffer.AsSpan(y * image.Width, image.Width));
             }
-            return new GrayImage(image.Width, image.Height, buffer)
+            EmbeddedResolution? resolution = format is TiffFormat ? ReadTiffResolution(image) : null;
+            image.Dispose();
+            // ImageSharp pools large buffers; hand them back now, the analysis needs the memory next.
+            Formats.MemoryAllocator.ReleaseRetainedResources();
+            return new GrayImage(info.Width, info.Height, buffer)
             {
                 SourceBitsPerPixel = info.PixelType?.BitsPerPixel ?? 0,
                 SourceFormat = format.Name,
-                Resolution = format is TiffFormat ? ReadTiffResolution(image) : null,
+                Resolution = resolution,
             };
         }
         catch (ImageDecodeException)
