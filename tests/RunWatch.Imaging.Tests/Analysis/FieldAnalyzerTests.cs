@@ -55,4 +55,32 @@ public sealed class FieldAnalyzerTests(ITestOutputHelper output)
         Assert.Equal(analysis.Wires.Count / areaUm2, s.DensityPerUm2!.Value, 9);
         Assert.Equal(s.DensityPerUm2.Value * 1e8, s.DensityPerCm2!.Value, 3);
     }
+
+    [Fact]
+    public void Analyze_GeneratedField_FindsEachDrawnVerticalWireAtItsSite()
+    {
+        // Ground truth from the generator: every vertical wire clear of the border and of any other object
+        // must be found within 1 px of its site, and classified vertical.
+        SemField field = Fields.Standard(15);
+        var image = new GrayImage(field.Width, field.Height, field.Pixels);
+        FieldAnalysis analysis = FieldAnalyzer.AnalyzeWithRaster(image, "truth", null, new FieldAnalysisOptions()).Analysis;
+        int validH = field.Height - field.InfoStripRows;
+        var isolated = field.Objects.Where(o => o.Kind == SemObjectKind.Vertical
+            && o.X > 2 * o.Size && o.Y > 2 * o.Size && o.X < field.Width - 2 * o.Size && o.Y < validH - 2 * o.Size
+            && field.Objects.All(p => p == o || Math.Sqrt((p.X - o.X) * (p.X - o.X) + (p.Y - o.Y) * (p.Y - o.Y)) > o.Size + p.Size + p.Length / 2 + 3)).ToList();
+        int found = 0, vertical = 0;
+        foreach (SemObject o in isolated)
+        {
+            var match = analysis.Wires.FirstOrDefault(w => Math.Abs(w.CentroidX - o.X) < 1 && Math.Abs(w.CentroidY - o.Y) < 1);
+            if (match is not null)
+            {
+                found++;
+                vertical += match.Class == WireClass.Vertical ? 1 : 0;
+            }
+        }
+        output.WriteLine($"{isolated.Count} isolated vertical wires: {found} found, {vertical} classified vertical");
+        Assert.True(isolated.Count > 300);
+        Assert.Equal(isolated.Count, found);
+        Assert.True(vertical >= 0.98 * isolated.Count, $"{vertical} of {isolated.Count} classified vertical");
+    }
 }
