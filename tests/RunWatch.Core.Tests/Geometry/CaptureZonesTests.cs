@@ -168,6 +168,21 @@ public sealed class CaptureZonesTests
         Assert.True(sequential.Guarded.SequenceEqual(parallel.Guarded));
     }
 
+    [Fact]
+    public void Compute_OutlinesInParallel_EqualSequentialOutlines()
+    {
+        var field = CaptureField.Rectangle(400, 300);
+        Point2D[] points = NucleationSites.Uniform(field, 9000, 22);
+        var options = new CaptureZoneOptions { DiffusionLength = 2.0, IncludeOutlines = true, MaxDegreeOfParallelism = 1 };
+        CaptureZoneResult sequential = CaptureZones.Compute(points, field, options);
+        CaptureZoneResult parallel = CaptureZones.Compute(points, field, options with { MaxDegreeOfParallelism = 2 });
+        for (int i = 0; i < points.Length; i++)
+        {
+            Assert.True(sequential.Outline(i).SequenceEqual(parallel.Outline(i)), $"outline {i} differs");
+            Assert.True(sequential.Outline(i).Length >= 3);
+        }
+    }
+
     [Theory]
     [InlineData(double.PositiveInfinity)]
     [InlineData(4.0)]
@@ -175,8 +190,9 @@ public sealed class CaptureZonesTests
     {
         // DERIVED: the outline's shoelace area equals the zone area (arcs sampled at 1°: the chord deficit per
         // arc is below 5e-5 of its sector, so 1e-3 relative bounds it).
-        var field = CaptureField.Rectangle(80, 60);
-        Point2D[] points = NucleationSites.Uniform(field, 300, 8);
+        // 1500 points span three chunks of 512, so the re-ordering of outlines from grid order is exercised.
+        var field = CaptureField.Rectangle(180, 150);
+        Point2D[] points = NucleationSites.Uniform(field, 1500, 8);
         var options = new CaptureZoneOptions { DiffusionLength = length, IncludeOutlines = true, OutlineArcStepDegrees = 1 };
         CaptureZoneResult result = CaptureZones.Compute(points, field, options);
         for (int i = 0; i < points.Length; i++)
@@ -189,6 +205,34 @@ public sealed class CaptureZonesTests
                 twice += (a.X * b.Y) - (b.X * a.Y);
             }
             Assert.Equal(result.Areas[i], Math.Abs(twice) / 2, 1e-3 * result.Areas[i]);
+        }
+    }
+
+    [Fact]
+    public void Compute_PointsCrowdedInACornerOfAHugeField_GiveTheSameZonesAsInASmallField()
+    {
+        // DERIVED: with L = 1 and every disc inside both fields, the zones cannot depend on the field's size.
+        var small = new CaptureField(0, 0, 30, 30);
+        var huge = new CaptureField(0, 0, 1e6, 1e6);
+        Point2D[] points = NucleationSites.Uniform(new CaptureField(5, 5, 25, 25), 5000, 31);
+        var options = new CaptureZoneOptions { DiffusionLength = 1.0 };
+        CaptureZoneResult inSmall = CaptureZones.Compute(points, small, options);
+        CaptureZoneResult inHuge = CaptureZones.Compute(points, huge, options);
+        for (int i = 0; i < points.Length; i++)
+        {
+            Assert.Equal(inSmall.Areas[i], inHuge.Areas[i], 1e-9);
+        }
+    }
+
+    [Fact]
+    public void Compute_CollinearPoints_CellsAreStrips()
+    {
+        // DERIVED: points on the line y = 5 at x = 1, 3, 5, 7, 9 in a 10 × 10 field: cells are 2 × 10 strips.
+        Point2D[] points = [new(1, 5), new(3, 5), new(5, 5), new(7, 5), new(9, 5)];
+        CaptureZoneResult result = CaptureZones.Compute(points, CaptureField.Rectangle(10, 10));
+        foreach (double a in result.Areas)
+        {
+            Assert.Equal(20.0, a, 9);
         }
     }
 
