@@ -69,18 +69,24 @@ public sealed class FieldAnalyzerTests(ITestOutputHelper output)
             && o.X > 2 * o.Size && o.Y > 2 * o.Size && o.X < field.Width - 2 * o.Size && o.Y < validH - 2 * o.Size
             && field.Objects.All(p => p == o || Math.Sqrt((p.X - o.X) * (p.X - o.X) + (p.Y - o.Y) * (p.Y - o.Y)) > o.Size + p.Size + p.Length / 2 + 3)).ToList();
         int found = 0, vertical = 0;
+        double ratioSum = 0;
         foreach (SemObject o in isolated)
         {
             var match = analysis.Wires.FirstOrDefault(w => Math.Abs(w.CentroidX - o.X) < 1 && Math.Abs(w.CentroidY - o.Y) < 1);
             if (match is not null)
             {
                 found++;
+                ratioSum += match.EquivalentRadius / Math.Sqrt(o.HexagonArea / Math.PI);
                 vertical += match.Class == WireClass.Vertical ? 1 : 0;
             }
         }
-        output.WriteLine($"{isolated.Count} isolated vertical wires: {found} found, {vertical} classified vertical");
+        output.WriteLine($"{isolated.Count} isolated vertical wires: {found} found, {vertical} classified vertical; measured/drawn equivalent radius {ratioSum / found:0.000}");
         Assert.True(isolated.Count > 300);
         Assert.Equal(isolated.Count, found);
         Assert.True(vertical >= 0.98 * isolated.Count, $"{vertical} of {isolated.Count} classified vertical");
+        // COMPUTED HERE: the radius comes out about 3 % small (0.972 with this seed): Otsu puts the threshold above
+        // the edge midpoint because the bright droplets raise the wire class's mean, and smoothing widens the
+        // edge. The check bounds that bias at 5 %; docs/imaging.md reports it.
+        Assert.InRange(ratioSum / found, 0.95, 1.02);
     }
 }
