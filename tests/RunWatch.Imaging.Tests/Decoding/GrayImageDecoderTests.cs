@@ -32,6 +32,22 @@ public sealed class GrayImageDecoderTests : IDisposable
         Assert.Equal("PNG", image.SourceFormat);
     }
 
+    [Theory]
+    [InlineData("jpg")]
+    [InlineData("bmp")]
+    [InlineData("png")]
+    public void Decode_EightBitFormats_GivesSixteenBitScale(string extension)
+    {
+        string path = _folder.File("flat." + extension);
+        using (var image = new SixLabors.ImageSharp.Image<SixLabors.ImageSharp.PixelFormats.L8>(32, 24, new SixLabors.ImageSharp.PixelFormats.L8(200)))
+        {
+            SixLabors.ImageSharp.ImageExtensions.Save(image, path);
+        }
+        GrayImage decoded = GrayImageDecoder.Decode(path);
+        // 8-bit 200 on the 16-bit scale is 200 · 257 = 51400 (DERIVED); JPEG may round by a level.
+        Assert.All(decoded.Pixels, v => Assert.InRange(v, 199 * 257, 201 * 257));
+    }
+
     [Fact]
     public void Decode_ZeroLengthFile_SaysEmpty()
     {
