@@ -21,7 +21,7 @@ public sealed class FieldAnalyzerTests(ITestOutputHelper output)
         int drawnVertical = field.Objects.Count(o => o.Kind == SemObjectKind.Vertical);
         output.WriteLine($"drawn {field.Objects.Count} ({drawnVertical} vertical); found {analysis.Statistics.ObjectsFound}, interior {analysis.Statistics.InteriorObjects}, vertical {analysis.Statistics.Vertical}, elongated {analysis.Statistics.Elongated}, oversized {analysis.Statistics.Oversized}, irregular {analysis.Statistics.Irregular}; threshold {analysis.Threshold}; band {analysis.ExcludedBottomRows} {analysis.ExcludedBandSource}");
         output.WriteLine(string.Join("; ", analysis.Timings.Select(t => $"{t.Stage} {t.Milliseconds:0.0}")));
-        output.WriteLine($"radius mean {analysis.Statistics.Radius?.Mean:0.0} nm; split {analysis.Wires.Count(w => w.Split)}");
+        output.WriteLine($"radius mean {analysis.Statistics.Radius?.Mean:0.0} nm; split {analysis.Wires.Count(w => w.Split)}, of which elongated {analysis.Wires.Count(w => w.Split && w.Class == WireClass.Elongated)}, vertical {analysis.Wires.Count(w => w.Split && w.Class == WireClass.Vertical)}; drawn tilted {field.Objects.Count(o => o.Kind == SemObjectKind.Tilted)}");
         Assert.Equal(field.InfoStripRows, analysis.ExcludedBottomRows);
         Assert.InRange(analysis.Statistics.ObjectsFound, field.Objects.Count * 0.97, field.Objects.Count * 1.03);
     }
