@@ -110,7 +110,7 @@ internal sealed class ImagingBenchmark : IBenchmark
     {
         string dll = Path.Combine(AppContext.BaseDirectory, "runwatch.dll");
         var psi = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
-        foreach (string a in (string[])[dll, "analyze", image, "--diffusion-length-um", DiffusionLengthUm.ToString(CultureInfo.InvariantCulture), "--json"])
+        foreach (string a in (string[])[dll, "analyze", image, "--diffusion-length-um", DiffusionLengthUm.ToString(CultureInfo.InvariantCulture)])
         {
             psi.ArgumentList.Add(a);
         }

@@ -14,13 +14,18 @@ internal sealed class PointGrid
         ArgumentNullException.ThrowIfNull(field);
         Field = field;
         Count = points.Length;
-        OriginX = field.MinX;
-        OriginY = field.MinY;
-        double cellSide = Math.Sqrt(field.Area * PointsPerCell / Math.Max(1, points.Length));
-        CellsX = (int)Math.Clamp(Math.Ceiling(field.Width / cellSide), 1, MaxCellsPerAxis);
-        CellsY = (int)Math.Clamp(Math.Ceiling(field.Height / cellSide), 1, MaxCellsPerAxis);
-        CellWidth = field.Width / CellsX;
-        CellHeight = field.Height / CellsY;
+        // A periodic grid must tile the box so that cells wrap; a plain one covers only the points' bounding box,
+        // so points crowded into part of a large field still get about two per cell.
+        (double x0, double y0, double width, double height) = field.Periodic || points.Length == 0
+            ? (field.MinX, field.MinY, field.Width, field.Height)
+            : BoundingBox(points, field);
+        OriginX = x0;
+        OriginY = y0;
+        double cellSide = Math.Sqrt(width * height * PointsPerCell / Math.Max(1, points.Length));
+        CellsX = (int)Math.Clamp(Math.Ceiling(width / cellSide), 1, MaxCellsPerAxis);
+        CellsY = (int)Math.Clamp(Math.Ceiling(height / cellSide), 1, MaxCellsPerAxis);
+        CellWidth = width / CellsX;
+        CellHeight = height / CellsY;
 
         CellStart = new int[(CellsX * CellsY) + 1];
         var cellOfPoint = new int[points.Length];
@@ -59,6 +64,27 @@ internal sealed class PointGrid
             Index[slot] = i;
             SlotOfPoint[i] = slot;
         }
+    }
+
+    /// <summary>Bounding box of the points, at least a small fraction of the field wide in each direction.</summary>
+    private static (double X0, double Y0, double Width, double Height) BoundingBox(ReadOnlySpan<Point2D> points, CaptureField field)
+    {
+        double minX = double.PositiveInfinity, minY = double.PositiveInfinity;
+        double maxX = double.NegativeInfinity, maxY = double.NegativeInfinity;
+        foreach (Point2D p in points)
+        {
+            minX = Math.Min(minX, p.X);
+            maxX = Math.Max(maxX, p.X);
+            minY = Math.Min(minY, p.Y);
+            maxY = Math.Max(maxY, p.Y);
+        }
+        if (!double.IsFinite(minX) || !double.IsFinite(maxX) || !double.IsFinite(minY) || !double.IsFinite(maxY))
+        {
+            // Non-finite input is reported point by point below; the field keeps the arithmetic finite meanwhile.
+            return (field.MinX, field.MinY, field.Width, field.Height);
+        }
+        double floor = 1e-6 * (field.Width + field.Height);
+        return (minX, minY, Math.Max(maxX - minX, floor), Math.Max(maxY - minY, floor));
     }
 
     public CaptureField Field { get; }

@@ -1,6 +1,10 @@
 namespace RunWatch.Core.PointPatterns;
 
-/// <summary>Critical nucleus size suggested by a fitted β, under a named <see cref="CriticalNucleusMapping"/>.</summary>
+/// <summary>
+/// Critical nucleus size suggested by a fitted β, under a named <see cref="CriticalNucleusMapping"/>. Interpretation
+/// only: besides the authors' own change from i + 1 to i + 2, Shi, Shim &amp; Amar (2009, Phys. Rev. E 79, 011602) report
+/// poor agreement of the Wigner form with the asymptotic distribution for point islands (CONFIRMED, CHECKS.md §4).
+/// </summary>
 public static class CriticalNucleus
 {
     /// <summary>i for <paramref name="beta"/> (not rounded: a fitted β is rarely an integer plus the offset).</summary>

@@ -5,7 +5,9 @@ namespace RunWatch.Core.PointPatterns;
 
 /// <summary>
 /// Generalised Wigner surmise P_β(s) = a_β·s^β·exp(−b_β·s²) for normalised capture-zone areas s = A/⟨A⟩
-/// (Pimpinelli &amp; Einstein 2007, Phys. Rev. Lett. 99, 226102; FROM MEMORY for volume and page).
+/// (Pimpinelli &amp; Einstein 2007, "Capture-zone scaling in island nucleation: universal fluctuation behavior",
+/// Phys. Rev. Lett. 99, 226102; Einstein, Pimpinelli &amp; González 2014, "Analyzing capture zone distributions (CZD)
+/// in growth: theory and applications", J. Cryst. Growth 401, 67–71; both citations CONFIRMED in CHECKS.md §4).
 /// a_β and b_β make P_β a density with unit mean: b_β = [Γ((β+2)/2) / Γ((β+1)/2)]², a_β = 2·b_β^((β+1)/2) / Γ((β+1)/2)
 /// (DERIVED; CHECKS.md §4). Equivalently s² ~ Gamma(shape (β+1)/2, rate b_β). Valid for β &gt; −1. Thread-safe.
 /// </summary>

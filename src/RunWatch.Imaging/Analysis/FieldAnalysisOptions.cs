@@ -3,7 +3,7 @@ using RunWatch.Imaging.Measurement;
 
 namespace RunWatch.Imaging.Analysis;
 
-/// <summary>Settings of one field analysis. Bound from the <c>FieldAnalysis</c> configuration section.</summary>
+/// <summary>Settings of one field analysis (init-only properties, bindable from a <c>FieldAnalysis</c> configuration section). Validate with <see cref="Validate"/>.</summary>
 public sealed class FieldAnalysisOptions
 {
     /// <summary>Pixel size in nm given on the command line or in config; a sidecar overrides it, it overrides TIFF tags.</summary>

@@ -78,7 +78,9 @@ public static partial class FieldAnalyzer
         int validH = h - bandRows;
         Mark("band");
 
-        ushort[] processed = Preprocess(image, validH, options, out double backgroundRemoved, Mark);
+        // One 16-bit work image serves first as the flattened image, then as the zones' column pass.
+        var work = new ushort[w * h];
+        ushort[] processed = Preprocess(image, validH, options, out double backgroundRemoved, Mark, work);
 
         int threshold = options.ManualThreshold ?? OtsuThreshold.Compute(processed);
         string method = options.ManualThreshold is null ? "otsu" : "manual";
@@ -103,7 +105,7 @@ public static partial class FieldAnalyzer
         if (lengthL is { } l)
         {
             zoneMap = options.KeepZoneMap ? new int[w * h] : null;
-            zoneAreas = RasterCaptureZones.Compute(labels, w, h, validH, wires.Length, l / lengthScale, zoneMap);
+            zoneAreas = RasterCaptureZones.Compute(labels, w, h, validH, wires.Length, l / lengthScale, zoneMap, work);
             Mark("edge zones");
         }
 
@@ -140,11 +142,11 @@ public static partial class FieldAnalyzer
     }
 
     /// <summary>Flattening and denoising of the rows above the band: the image the threshold is applied to.</summary>
-    internal static ushort[] Preprocess(GrayImage image, int validHeight, FieldAnalysisOptions options, out double backgroundRemoved, Action<string>? mark = null)
+    internal static ushort[] Preprocess(GrayImage image, int validHeight, FieldAnalysisOptions options, out double backgroundRemoved, Action<string>? mark = null, ushort[]? destination = null)
     {
         int w = image.Width;
         int validN = w * validHeight;
-        var processed = new ushort[validN];
+        ushort[] processed = destination ?? new ushort[validN];
         backgroundRemoved = 0;
         if (options.BackgroundWindowPixels > 0 && Math.Min(w, validHeight) >= 8)
         {

@@ -11,9 +11,9 @@ namespace RunWatch.Imaging.Analysis;
 internal static class RasterCaptureZones
 {
     /// <summary>Zone area in pixels per label (index = label); optionally writes the zone label of every pixel into <paramref name="zoneMap"/>.</summary>
-    public static long[] Compute(int[] labels, int width, int height, int validHeight, int maxLabel, double radiusPixels, int[]? zoneMap)
+    public static long[] Compute(int[] labels, int width, int height, int validHeight, int maxLabel, double radiusPixels, int[]? zoneMap, ushort[]? scratch = null)
     {
-        var nearestRow = new ushort[labels.Length];
+        ushort[] nearestRow = scratch is { } s && s.Length >= labels.Length ? s : new ushort[labels.Length];
         DistanceTransform.ColumnPass16(labels, width, height, nearestRow);
         double limit2 = radiusPixels * radiusPixels;
         var total = new long[maxLabel + 1];

@@ -85,16 +85,15 @@ public static class GrayImageDecoder
                 $"the header claims {info.Width:N0} × {info.Height:N0} = {pixels:N0} pixels, more than the limit of {limits.MaxPixels:N0}");
         }
 
-        if (format is TiffFormat)
         {
             string? problem;
             try
             {
-                problem = TiffExtentCheck.FindProblem(stream);
+                problem = CompletenessCheck.FindProblem(stream, format.Name);
             }
             catch (EndOfStreamException)
             {
-                problem = "the image directory is cut short";
+                problem = "the file ends early (truncated)";
             }
             if (problem is not null)
             {
@@ -116,11 +115,15 @@ public static class GrayImageDecoder
                 ReadOnlySpan<L16> row = image.DangerousGetPixelRowMemory(y).Span;
                 MemoryMarshal.Cast<L16, ushort>(row).CopyTo(buffer.AsSpan(y * image.Width, image.Width));
             }
-            return new GrayImage(image.Width, image.Height, buffer)
+            EmbeddedResolution? resolution = format is TiffFormat ? ReadTiffResolution(image) : null;
+            image.Dispose();
+            // ImageSharp pools large buffers; hand them back now, the analysis needs the memory next.
+            Formats.MemoryAllocator.ReleaseRetainedResources();
+            return new GrayImage(info.Width, info.Height, buffer)
             {
                 SourceBitsPerPixel = info.PixelType?.BitsPerPixel ?? 0,
                 SourceFormat = format.Name,
-                Resolution = format is TiffFormat ? ReadTiffResolution(image) : null,
+                Resolution = resolution,
             };
         }
         catch (ImageDecodeException)

@@ -112,6 +112,21 @@ internal sealed class ComponentSplitter(double hMaximaPixels, double compactFact
             _peak[p] = level2;
             _significant[p] = false;
             double level = Math.Sqrt(level2);
+            // Join the basin of the highest processed neighbour first (steepest ascent), so that a run of
+            // equal-distance pixels along an outline cannot carry one basin around its neighbour.
+            int steepest = -1;
+            foreach (var (dx, dy) in Neighbours8)
+            {
+                int q = p + dy * pw + dx;
+                if (_features[q] == 0 && _parent[q] >= 0 && (steepest < 0 || _distance2[q] > _distance2[steepest]))
+                {
+                    steepest = q;
+                }
+            }
+            if (steepest >= 0)
+            {
+                _parent[p] = Find(steepest);
+            }
             foreach (var (dx, dy) in Neighbours8)
             {
                 int q = p + dy * pw + dx;

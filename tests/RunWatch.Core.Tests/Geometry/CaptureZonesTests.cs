@@ -209,6 +209,34 @@ public sealed class CaptureZonesTests
     }
 
     [Fact]
+    public void Compute_PointsCrowdedInACornerOfAHugeField_GiveTheSameZonesAsInASmallField()
+    {
+        // DERIVED: with L = 1 and every disc inside both fields, the zones cannot depend on the field's size.
+        var small = new CaptureField(0, 0, 30, 30);
+        var huge = new CaptureField(0, 0, 1e6, 1e6);
+        Point2D[] points = NucleationSites.Uniform(new CaptureField(5, 5, 25, 25), 5000, 31);
+        var options = new CaptureZoneOptions { DiffusionLength = 1.0 };
+        CaptureZoneResult inSmall = CaptureZones.Compute(points, small, options);
+        CaptureZoneResult inHuge = CaptureZones.Compute(points, huge, options);
+        for (int i = 0; i < points.Length; i++)
+        {
+            Assert.Equal(inSmall.Areas[i], inHuge.Areas[i], 1e-9);
+        }
+    }
+
+    [Fact]
+    public void Compute_CollinearPoints_CellsAreStrips()
+    {
+        // DERIVED: points on the line y = 5 at x = 1, 3, 5, 7, 9 in a 10 × 10 field: cells are 2 × 10 strips.
+        Point2D[] points = [new(1, 5), new(3, 5), new(5, 5), new(7, 5), new(9, 5)];
+        CaptureZoneResult result = CaptureZones.Compute(points, CaptureField.Rectangle(10, 10));
+        foreach (double a in result.Areas)
+        {
+            Assert.Equal(20.0, a, 9);
+        }
+    }
+
+    [Fact]
     public void Compute_DuplicatePoints_ThrowsNamingThem()
     {
         var field = CaptureField.Rectangle(10, 10);

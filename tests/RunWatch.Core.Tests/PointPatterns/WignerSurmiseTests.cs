@@ -4,7 +4,7 @@ using Xunit;
 
 namespace RunWatch.Core.Tests.PointPatterns;
 
-// P_β(s) = a_β s^β exp(−b_β s²) (Pimpinelli & Einstein 2007, FROM MEMORY for volume/page); coefficient values
+// P_β(s) = a_β s^β exp(−b_β s²) (Einstein, Pimpinelli & González 2014, J. Cryst. Growth 401, 67–71, CONFIRMED); values
 // DERIVED in CHECKS.md §4 from the Γ-function formulas; quadrature by MathNet.Numerics (outside reference).
 public sealed class WignerSurmiseTests
 {
@@ -35,6 +35,19 @@ public sealed class WignerSurmiseTests
         (double a, double b) = WignerSurmise.Coefficients(4.0);
         Assert.Equal(64 / (9 * Math.PI), b, 12);
         Assert.Equal(262144 / (729 * Math.Pow(Math.PI, 3)), a, 11);
+    }
+
+    [Theory]
+    [InlineData(3.0, 6.2456090, 1.7671459, 0.1318)]
+    [InlineData(4.0, 11.5974571, 2.2635370, 0.1045)]
+    [InlineData(5.0, 21.0512203, 2.7611654, 0.0865)]
+    public void Coefficients_TabulatedBetas_MatchChecksTable(double beta, double a, double b, double variance)
+    {
+        // DERIVED values tabulated in CHECKS.md §4 (a and b to 8 significant digits, Var(s) to 4 decimals).
+        (double aa, double bb) = WignerSurmise.Coefficients(beta);
+        Assert.Equal(a, aa, 6);
+        Assert.Equal(b, bb, 6);
+        Assert.Equal(variance, WignerSurmise.Variance(beta), 4);
     }
 
     [Theory]

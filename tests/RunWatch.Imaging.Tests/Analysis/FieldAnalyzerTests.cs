@@ -21,7 +21,7 @@ public sealed class FieldAnalyzerTests(ITestOutputHelper output)
         int drawnVertical = field.Objects.Count(o => o.Kind == SemObjectKind.Vertical);
         output.WriteLine($"drawn {field.Objects.Count} ({drawnVertical} vertical); found {analysis.Statistics.ObjectsFound}, interior {analysis.Statistics.InteriorObjects}, vertical {analysis.Statistics.Vertical}, elongated {analysis.Statistics.Elongated}, oversized {analysis.Statistics.Oversized}, irregular {analysis.Statistics.Irregular}; threshold {analysis.Threshold}; band {analysis.ExcludedBottomRows} {analysis.ExcludedBandSource}");
         output.WriteLine(string.Join("; ", analysis.Timings.Select(t => $"{t.Stage} {t.Milliseconds:0.0}")));
-        output.WriteLine($"radius mean {analysis.Statistics.Radius?.Mean:0.0} nm; split {analysis.Wires.Count(w => w.Split)}");
+        output.WriteLine($"radius mean {analysis.Statistics.Radius?.Mean:0.0} nm; split {analysis.Wires.Count(w => w.Split)}, of which elongated {analysis.Wires.Count(w => w.Split && w.Class == WireClass.Elongated)}, vertical {analysis.Wires.Count(w => w.Split && w.Class == WireClass.Vertical)}; drawn tilted {field.Objects.Count(o => o.Kind == SemObjectKind.Tilted)}");
         Assert.Equal(field.InfoStripRows, analysis.ExcludedBottomRows);
         Assert.InRange(analysis.Statistics.ObjectsFound, field.Objects.Count * 0.97, field.Objects.Count * 1.03);
     }
@@ -54,5 +54,39 @@ public sealed class FieldAnalyzerTests(ITestOutputHelper output)
         double areaUm2 = field.Width * (field.Height - field.InfoStripRows) * 25e-6;
         Assert.Equal(analysis.Wires.Count / areaUm2, s.DensityPerUm2!.Value, 9);
         Assert.Equal(s.DensityPerUm2.Value * 1e8, s.DensityPerCm2!.Value, 3);
+    }
+
+    [Fact]
+    public void Analyze_GeneratedField_FindsEachDrawnVerticalWireAtItsSite()
+    {
+        // Ground truth from the generator: every vertical wire clear of the border and of any other object
+        // must be found within 1 px of its site, and classified vertical.
+        SemField field = Fields.Standard(15);
+        var image = new GrayImage(field.Width, field.Height, field.Pixels);
+        FieldAnalysis analysis = FieldAnalyzer.AnalyzeWithRaster(image, "truth", null, new FieldAnalysisOptions()).Analysis;
+        int validH = field.Height - field.InfoStripRows;
+        var isolated = field.Objects.Where(o => o.Kind == SemObjectKind.Vertical
+            && o.X > 2 * o.Size && o.Y > 2 * o.Size && o.X < field.Width - 2 * o.Size && o.Y < validH - 2 * o.Size
+            && field.Objects.All(p => p == o || Math.Sqrt((p.X - o.X) * (p.X - o.X) + (p.Y - o.Y) * (p.Y - o.Y)) > o.Size + p.Size + p.Length / 2 + 3)).ToList();
+        int found = 0, vertical = 0;
+        double ratioSum = 0;
+        foreach (SemObject o in isolated)
+        {
+            var match = analysis.Wires.FirstOrDefault(w => Math.Abs(w.CentroidX - o.X) < 1 && Math.Abs(w.CentroidY - o.Y) < 1);
+            if (match is not null)
+            {
+                found++;
+                ratioSum += match.EquivalentRadius / Math.Sqrt(o.HexagonArea / Math.PI);
+                vertical += match.Class == WireClass.Vertical ? 1 : 0;
+            }
+        }
+        output.WriteLine($"{isolated.Count} isolated vertical wires: {found} found, {vertical} classified vertical; measured/drawn equivalent radius {ratioSum / found:0.000}");
+        Assert.True(isolated.Count > 300);
+        Assert.Equal(isolated.Count, found);
+        Assert.True(vertical >= 0.98 * isolated.Count, $"{vertical} of {isolated.Count} classified vertical");
+        // COMPUTED HERE: the radius comes out about 3 % small (0.972 with this seed): Otsu puts the threshold above
+        // the edge midpoint because the bright droplets raise the wire class's mean, and smoothing widens the
+        // edge. The check bounds that bias at 5 %; docs/imaging.md reports it.
+        Assert.InRange(ratioSum / found, 0.95, 1.02);
     }
 }

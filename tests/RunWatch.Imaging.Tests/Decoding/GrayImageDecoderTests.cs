@@ -32,6 +32,22 @@ public sealed class GrayImageDecoderTests : IDisposable
         Assert.Equal("PNG", image.SourceFormat);
     }
 
+    [Theory]
+    [InlineData("jpg")]
+    [InlineData("bmp")]
+    [InlineData("png")]
+    public void Decode_EightBitFormats_GivesSixteenBitScale(string extension)
+    {
+        string path = _folder.File("flat." + extension);
+        using (var image = new SixLabors.ImageSharp.Image<SixLabors.ImageSharp.PixelFormats.L8>(32, 24, new SixLabors.ImageSharp.PixelFormats.L8(200)))
+        {
+            SixLabors.ImageSharp.ImageExtensions.Save(image, path);
+        }
+        GrayImage decoded = GrayImageDecoder.Decode(path);
+        // 8-bit 200 on the 16-bit scale is 200 · 257 = 51400 (DERIVED); JPEG may round by a level.
+        Assert.All(decoded.Pixels, v => Assert.InRange(v, 199 * 257, 201 * 257));
+    }
+
     [Fact]
     public void Decode_ZeroLengthFile_SaysEmpty()
     {
@@ -51,6 +67,33 @@ public sealed class GrayImageDecoderTests : IDisposable
         var ex = Assert.Throws<ImageDecodeException>(() => GrayImageDecoder.Decode(path));
         Assert.Equal(ImageDecodeFailure.Corrupt, ex.Failure);
         Assert.Contains("cut.png", ex.Message);
+    }
+
+    [Theory]
+    [InlineData("png", 0.9)]
+    [InlineData("png", 0.5)]
+    [InlineData("jpg", 0.7)]
+    [InlineData("bmp", 0.8)]
+    public void Decode_TruncatedLargerImage_SaysTruncated(string extension, double keep)
+    {
+        // A field-sized image whose decoder would otherwise fill the missing rows with zeros.
+        string path = _folder.File("field." + extension);
+        var pixels = new ushort[400 * 300];
+        var random = new Random(3);
+        for (int i = 0; i < pixels.Length; i++)
+        {
+            pixels[i] = (ushort)random.Next(0, 65536);
+        }
+        using (var image = SixLabors.ImageSharp.Image.LoadPixelData<SixLabors.ImageSharp.PixelFormats.L16>(
+            System.Runtime.InteropServices.MemoryMarshal.Cast<ushort, SixLabors.ImageSharp.PixelFormats.L16>(pixels.AsSpan()), 400, 300))
+        {
+            SixLabors.ImageSharp.ImageExtensions.Save(image, path);
+        }
+        byte[] bytes = File.ReadAllBytes(path);
+        File.WriteAllBytes(path, bytes[..(int)(bytes.Length * keep)]);
+        var ex = Assert.Throws<ImageDecodeException>(() => GrayImageDecoder.Decode(path));
+        Assert.Equal(ImageDecodeFailure.Corrupt, ex.Failure);
+        Assert.Contains("truncated", ex.Message);
     }
 
     [Fact]

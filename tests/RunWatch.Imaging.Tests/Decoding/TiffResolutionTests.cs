@@ -72,4 +72,16 @@ public sealed class TiffResolutionTests : IDisposable
         Assert.False(scale.HasScale);
         Assert.Contains("not an SEM scale", scale.Note);
     }
+
+    [Fact]
+    public void Decode_PillowRgbTiff_ReducesToLuminance()
+    {
+        // The writer puts the same 8-bit value in R, G and B, so any luminance weights summing to 1
+        // (ImageSharp uses ITU-R BT.709) give that value, scaled to 16 bit by 257 (DERIVED).
+        string path = _folder.File("rgb.tif");
+        ReferenceTiff.Write(path, "RGB", 0, 0, 0);
+        GrayImage image = GrayImageDecoder.Decode(path);
+        int expected8 = (1000 * 20 + 10 * 7) / 256;
+        Assert.InRange(image.Pixels[7 * 64 + 20], expected8 * 257 - 1, expected8 * 257 + 1);
+    }
 }
