@@ -83,6 +83,10 @@ public static class ThermalIntegrator
         var (sum, covered, lastTime) = calibration.TryGetOffsetK(out double offsetK)
             ? Accumulate(new OffsetMap(offsetK + PhysicalConstants.ZeroCelsiusK), timesS, readingsC, k, a, startS, endS, maxGapS, ref tally)
             : Accumulate(new CalibrationMap(calibration), timesS, readingsC, k, a, startS, endS, maxGapS, ref tally);
+        if (!double.IsFinite(sum))
+        {
+            throw new ArgumentException("A reading or time in the window is not finite.", nameof(readingsC));
+        }
         if (lastTime < endS)
         {
             tally.Uncovered(Math.Max(lastTime, startS), endS);
@@ -115,6 +119,10 @@ public static class ThermalIntegrator
                 ? fA * (1 + step * (1 + step * (1.0 / 2 + step * (1.0 / 6 + step * (1.0 / 24 + step * (1.0 / 120 + step * (1.0 / 720)))))))
                 : Math.Exp(-xB);
             double dt = tB - tA;
+            if (dt < 0)
+            {
+                ThrowTimeGoesBackwards(i, tA, tB);
+            }
             if (dt > maxGapS)
             {
                 tally.Uncovered(Math.Max(tA, startS), Math.Min(tB, endS));
@@ -145,6 +153,10 @@ public static class ThermalIntegrator
         }
         return (sum, covered, tA);
     }
+
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private static void ThrowTimeGoesBackwards(int index, double before, double after) =>
+        throw new ArgumentException($"Time goes backwards at sample {index} ({after} s after {before} s).", "timesS");
 
     /// <summary>First index whose time is ≥ <paramref name="t"/> (the length when none).</summary>
     internal static int LowerBound(ReadOnlySpan<double> timesS, double t)

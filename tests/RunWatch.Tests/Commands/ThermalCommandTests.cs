@@ -96,6 +96,16 @@ public sealed class ThermalCommandTests
         Assert.Contains("built-in example process (invented", run.Output);
     }
 
+    [Fact]
+    public void Thermal_HighLimit_ReportsAlarmWithCaution()
+    {
+        using var log = new TempFile("time,tc\n0,600\n1,655\n2,655\n3,600\n");
+        CommandRun run = CommandRun.Invoke("thermal", log.Path, "--high-c", "650");
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("Alarm           high limit at 1 s (reading 655 °C)", run.Output);
+        Assert.Contains("do not replace the heater's hardware interlocks", run.Output);
+    }
+
     [Theory]
     [InlineData("time,tc\n0,600\n1,6o0\n", "line 3, column 2 (tc): '6o0' is not a number")]
     [InlineData("time,tc\n0,600\n1,600,1\n", "line 3: 3 cells, but the header has 2 columns")]
