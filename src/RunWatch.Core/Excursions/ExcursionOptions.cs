@@ -19,7 +19,7 @@ public sealed class ExcursionOptions
     /// <value>Default 5 s.</value>
     public TimeSpan MinimumDuration { get; set; } = TimeSpan.FromSeconds(5);
 
-    /// <summary>Absolute high limit, °C; null disables it.</summary>
+    /// <summary>Absolute high limit, °C; null disables it. A software record only: it never replaces a hardware over-temperature interlock.</summary>
     public double? HighLimitC { get; set; }
 
     /// <summary>Absolute low limit, °C; null disables it.</summary>

@@ -83,6 +83,10 @@ public static class ThermalIntegrator
         var (sum, covered, lastTime) = calibration.TryGetOffsetK(out double offsetK)
             ? Accumulate(new OffsetMap(offsetK + PhysicalConstants.ZeroCelsiusK), timesS, readingsC, k, a, startS, endS, maxGapS, ref tally)
             : Accumulate(new CalibrationMap(calibration), timesS, readingsC, k, a, startS, endS, maxGapS, ref tally);
+        if (!double.IsFinite(sum))
+        {
+            throw new ArgumentException("A reading or time in the window is not finite.", nameof(readingsC));
+        }
         if (lastTime < endS)
         {
             tally.Uncovered(Math.Max(lastTime, startS), endS);
@@ -115,6 +119,10 @@ public static class ThermalIntegrator
                 ? fA * (1 + step * (1 + step * (1.0 / 2 + step * (1.0 / 6 + step * (1.0 / 24 + step * (1.0 / 120 + step * (1.0 / 720)))))))
                 : Math.Exp(-xB);
             double dt = tB - tA;
+            if (dt < 0)
+            {
+                ThrowTimeGoesBackwards(i, tA, tB);
+            }
             if (dt > maxGapS)
             {
                 tally.Uncovered(Math.Max(tA, startS), Math.Min(tB, endS));
@@ -145,6 +153,10 @@ public static class ThermalIntegrator
         }
         return (sum, covered, tA);
     }
+
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private static void ThrowTimeGoesBackwards(int index, double before, double after) =>
+        throw new ArgumentException($"Time goes backwards at sample {index} ({after} s after {before} s).", "timesS");
 
     /// <summary>First index whose time is ≥ <paramref name="t"/> (the length when none).</summary>
     internal static int LowerBound(ReadOnlySpan<double> timesS, double t)
@@ -177,11 +189,12 @@ public static class ThermalIntegrator
             // ∫₀¹ exp(−x(s)) ds with x(s) = a/(T₀(1+r·s)): −x(s) = −x₀ + λ·s + δ(s),
             // δ(s) = λ·r·s(1−s)/(1+r·s) exactly (DERIVED). Average of e^δ under the weight e^{λs}, to second order.
             double mean = Math.Abs(lambda) < 1e-2
-                ? fA * (1 + lambda * (1.0 / 2 + lambda * (1.0 / 6 + lambda * (1.0 / 24 + lambda * (1.0 / 120 + lambda / 720)))))
+                ? fA * (1 + lambda * (1.0 / 2 + lambda * (1.0 / 6 + lambda * (1.0 / 24 + lambda * (1.0 / 120 + lambda * (1.0 / 720))))))
                 : (fB - fA) / lambda;
             double curvature = lambda * r;
-            double correction = curvature * (1.0 / 6 - lambda * lambda / 360 - r / 12 - r * lambda / 120 + r * r / 20)
-                + curvature * curvature / 60;
+            // Constants as reciprocals: the JIT does not turn a division by a constant into a multiplication.
+            double correction = curvature * ((1.0 / 6) - lambda * lambda * (1.0 / 360) - r * (1.0 / 12) - r * lambda * (1.0 / 120) + r * r * (1.0 / 20))
+                + curvature * curvature * (1.0 / 60);
             return dt * mean * (1 + correction);
         }
         return dt * LargeStep(kA, kB, xA, xB, fA, fB, a);

@@ -50,6 +50,10 @@ internal static class ThermalReportText
         {
             output.WriteLine($"Alarm           {Describe(a.Kind)} at {Time(a.TimeS, report.Origin)} (reading {F(a.ValueC)} °C)");
         }
+        if (report.OtherAlarms.Count > 0 || e.HighLimitC.HasValue || e.LowLimitC.HasValue)
+        {
+            output.WriteLine("Caution         these limit checks are a record of the run; they do not replace the heater's hardware interlocks or your site's safety procedures");
+        }
         foreach (string note in report.Notes)
         {
             output.WriteLine($"Note            {note}");

@@ -219,6 +219,14 @@ public sealed class ThermalIntegratorTests
     }
 
     [Fact]
+    public void Integrate_BadSamples_Throw()
+    {
+        Assert.Throws<ArgumentException>(() => Integrate([0, 2, 1, 3], [600, 600, 600, 600], OneEv, 0, 3));
+        Assert.Throws<ArgumentException>(() => Integrate([0, 1, 2], [600, double.NaN, 600], OneEv, 0, 2));
+        Assert.Throws<ArgumentException>(() => Integrate([0, 1, 2], [600, 600], OneEv, 0, 2));
+    }
+
+    [Fact]
     public void Integrate_EmptyRecord_IsOneGap()
     {
         var gaps = new List<RecordGap>();

@@ -96,6 +96,38 @@ public sealed class ThermalCommandTests
         Assert.Contains("built-in example process (invented", run.Output);
     }
 
+    [Fact]
+    public void Thermal_SimulatedDemoRun_FindsTheInjectedExcursionInTheGrowthWindow()
+    {
+        // End to end: the invented demo chamber → CSV → runwatch thermal over the growth step.
+        var simulator = new RunWatch.Simulation.Chamber.ChamberSimulator(new RunWatch.Simulation.Chamber.ChamberSimulatorOptions());
+        var growth = simulator.Schedule().Single(s => s.Step.Name == "growth");
+        var writer = new StringWriter();
+        RunWatch.Simulation.Chamber.ChamberCsvWriter.Write(simulator.Run(), new DateTimeOffset(2026, 3, 4, 9, 0, 0, TimeSpan.Zero), writer);
+        using var log = new TempFile(writer.ToString());
+        CommandRun run = CommandRun.Invoke(
+            "thermal", log.Path, "--from", growth.StartS.ToString("R", CultureInfo.InvariantCulture), "--to", growth.EndS.ToString("R", CultureInfo.InvariantCulture),
+            "--setpoint-channel", "substrate_sp", "--setpoint-c", "610", "--planned-s", "1800", "--d0", D0, "--ea", "1", "--json");
+        Assert.Equal(0, run.ExitCode);
+        using var doc = JsonDocument.Parse(run.Output);
+        JsonElement root = doc.RootElement;
+        JsonElement excursion = Assert.Single(root.GetProperty("excursions").EnumerateArray().ToList());
+        Assert.Equal("alarm", excursion.GetProperty("severity").GetString());
+        Assert.True(excursion.GetProperty("delta_l_eff_um").GetDouble() > 0);
+        Assert.True(root.GetProperty("l_eff_um").GetDouble() > root.GetProperty("l_nom_um").GetDouble(), "an over-temperature excursion lengthens L");
+        Assert.True(root.GetProperty("complete").GetBoolean());
+    }
+
+    [Fact]
+    public void Thermal_HighLimit_ReportsAlarmWithCaution()
+    {
+        using var log = new TempFile("time,tc\n0,600\n1,655\n2,655\n3,600\n");
+        CommandRun run = CommandRun.Invoke("thermal", log.Path, "--high-c", "650");
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("Alarm           high limit at 1 s (reading 655 °C)", run.Output);
+        Assert.Contains("do not replace the heater's hardware interlocks", run.Output);
+    }
+
     [Theory]
     [InlineData("time,tc\n0,600\n1,6o0\n", "line 3, column 2 (tc): '6o0' is not a number")]
     [InlineData("time,tc\n0,600\n1,600,1\n", "line 3: 3 cells, but the header has 2 columns")]
