@@ -5,6 +5,10 @@ internal static class BenchmarkCatalog
 {
     public static IReadOnlyList<IBenchmark> All { get; } =
     [
+        new ImagingBenchmark(),
         new CaptureZoneBenchmark(),
+        new ThermalBenchmark(),
+        new IngestBenchmark(),
+        new DashboardBenchmark(),
     ];
 }

@@ -9,6 +9,12 @@ internal static class CommandCatalog
     {
         var root = new RootCommand("RunWatch: records growth-chamber thermal history, measures SEM fields of nanowires and writes a QC verdict per wafer.");
         root.Subcommands.Add(DemoCommand.Create());
+        root.Subcommands.Add(ServeCommand.Create());
+        root.Subcommands.Add(ReplayCommand.Create());
+        root.Subcommands.Add(ThermalCommand.Create());
+        root.Subcommands.Add(ReportCommand.Create());
+        root.Subcommands.Add(AnalyzeCommand.Create());
+        root.Subcommands.Add(HashPasswordCommand.Create());
         return root;
     }
 }

@@ -1,0 +1,16 @@
+namespace RunWatch.Core.Safety;
+
+/// <summary>The latest known state of one chamber, the input to <see cref="ReminderEvaluator"/>.</summary>
+/// <param name="Chamber">Chamber name.</param>
+/// <param name="Now">Evaluation time.</param>
+/// <param name="LastSampleAt">Time of the latest sample on any channel, or null if none has arrived.</param>
+/// <param name="Values">Latest value per channel name, in the channel's configured unit.</param>
+/// <param name="RunActive">Whether a run is in progress.</param>
+/// <param name="LastRunEndedAt">When the latest run ended, or null.</param>
+public sealed record LiveChamberState(
+    string Chamber,
+    DateTimeOffset Now,
+    DateTimeOffset? LastSampleAt,
+    IReadOnlyDictionary<string, double> Values,
+    bool RunActive,
+    DateTimeOffset? LastRunEndedAt);

@@ -1,0 +1,54 @@
+namespace RunWatch.Imaging.Segmentation;
+
+/// <summary>
+/// Finds an instrument information strip at the bottom of a field: the run of rows, counted from the bottom,
+/// whose most frequent value covers at least <see cref="UniformFraction"/> of the row. Rendered strips are flat
+/// graphics with text; image rows carry noise and never are. A run taller than <see cref="MaxFraction"/> of the
+/// image is not taken as a strip (a saturated image would look uniform everywhere).
+/// </summary>
+internal static class InfoStripDetector
+{
+    public const double UniformFraction = 0.5;
+
+    public const double MaxFraction = 0.25;
+
+    /// <summary>Rows at the bottom that form the strip, 0 when there is none.</summary>
+    public static int DetectBottomRows(ReadOnlySpan<ushort> pixels, int width, int height)
+    {
+        if (height < 8)
+        {
+            return 0;
+        }
+        var counts = new int[ushort.MaxValue + 1];
+        int limit = (int)(height * MaxFraction);
+        int rows = 0;
+        for (int y = height - 1; y >= 0; y--)
+        {
+            ReadOnlySpan<ushort> row = pixels.Slice(y * width, width);
+            int best = 0;
+            for (int x = 0; x < row.Length; x++)
+            {
+                int c = ++counts[row[x]];
+                if (c > best)
+                {
+                    best = c;
+                }
+            }
+            for (int x = 0; x < row.Length; x++)
+            {
+                counts[row[x]] = 0;
+            }
+            if (best < UniformFraction * width)
+            {
+                break;
+            }
+            rows++;
+            if (rows > limit)
+            {
+                return 0;
+            }
+        }
+        // A strip thinner than 2 rows is a border line, not an information strip, and harms nothing.
+        return rows >= 2 ? rows : 0;
+    }
+}

@@ -1,0 +1,84 @@
+using RunWatch.Core.Excursions;
+using RunWatch.Storage;
+
+namespace RunWatch.Ingest.Alerts;
+
+/// <summary>
+/// The lifecycle bookkeeping: applies a signal to the current alert of its key (ISA-18.2 states) and says which change
+/// it was. Pure and single-threaded (the dispatcher owns it), so it is tested without a store or a broker.
+/// </summary>
+internal sealed class AlertBook
+{
+    private readonly Dictionary<string, AlertRecord> _current = new(StringComparer.Ordinal);
+
+    /// <summary>Alerts not back to normal, by key.</summary>
+    public IReadOnlyDictionary<string, AlertRecord> Current => _current;
+
+    public void Load(IEnumerable<AlertRecord> active)
+    {
+        foreach (var alert in active)
+        {
+            _current[alert.Key] = alert;
+        }
+    }
+
+    /// <summary>Replaces the stored copy (after a save gave it an id).</summary>
+    public void Update(AlertRecord alert)
+    {
+        if (alert.State == AlertState.Normal)
+        {
+            _current.Remove(alert.Key);
+        }
+        else
+        {
+            _current[alert.Key] = alert;
+        }
+    }
+
+    /// <summary>The record after the signal and the name of the change, or null when the signal changes nothing.</summary>
+    public (AlertRecord Alert, string Change)? Apply(AlertSignal signal, string? user = null)
+    {
+        _current.TryGetValue(signal.Key, out var existing);
+        double? value = double.IsFinite(signal.Value) ? signal.Value : null;
+        (AlertRecord, string)? result = signal.To switch
+        {
+            AlarmState.ActiveUnacknowledged when existing is null || existing.State == AlertState.Normal => (new AlertRecord
+            {
+                Key = signal.Key, Chamber = signal.Chamber, Kind = signal.Kind, Severity = AlertKinds.Severity(signal.Kind),
+                State = AlertState.Unacknowledged, Message = signal.Message, RaisedAt = signal.At, UpdatedAt = signal.At, PeakValue = value,
+            }, existing?.State == AlertState.Shelved ? "unshelved" : "raised"),
+            AlarmState.ActiveUnacknowledged => (existing with
+            {
+                State = AlertState.Unacknowledged, ClearedAt = null, Message = signal.Message, UpdatedAt = signal.At, PeakValue = value ?? existing.PeakValue,
+            }, existing.State == AlertState.Shelved ? "unshelved" : "raised"),
+            AlarmState.ActiveAcknowledged when existing is not null => (existing with
+            {
+                State = AlertState.Acknowledged, AcknowledgedAt = signal.At, AcknowledgedBy = user ?? existing.AcknowledgedBy, UpdatedAt = signal.At,
+            }, "acknowledged"),
+            AlarmState.ReturnedToNormalUnacknowledged when existing is not null => (existing with
+            {
+                State = AlertState.ReturnedUnacknowledged, ClearedAt = signal.At, UpdatedAt = signal.At,
+            }, "cleared"),
+            AlarmState.Normal when existing is not null => (existing with
+            {
+                State = AlertState.Normal,
+                ClearedAt = existing.ClearedAt ?? signal.At,
+                AcknowledgedAt = existing.State is AlertState.ReturnedUnacknowledged or AlertState.Unacknowledged ? signal.At : existing.AcknowledgedAt,
+                AcknowledgedBy = existing.State is AlertState.ReturnedUnacknowledged or AlertState.Unacknowledged ? user ?? existing.AcknowledgedBy : existing.AcknowledgedBy,
+                UpdatedAt = signal.At,
+            }, existing.State == AlertState.Acknowledged ? "cleared" : "normal"),
+            AlarmState.Shelved when existing is not null => (existing with { State = AlertState.Shelved, UpdatedAt = signal.At }, "shelved"),
+            AlarmState.Shelved => (new AlertRecord
+            {
+                Key = signal.Key, Chamber = signal.Chamber, Kind = signal.Kind, Severity = AlertKinds.Severity(signal.Kind),
+                State = AlertState.Shelved, Message = signal.Message, RaisedAt = signal.At, UpdatedAt = signal.At, PeakValue = value,
+            }, "shelved"),
+            _ => null,
+        };
+        if (result is { } r)
+        {
+            Update(r.Item1);
+        }
+        return result;
+    }
+}

@@ -1,0 +1,231 @@
+using System.Threading.Channels;
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Options;
+using RunWatch.Ingest.Pipeline;
+using RunWatch.Storage;
+
+namespace RunWatch.Ingest.Alerts;
+
+/// <summary>
+/// Turns alarm signals into stored alert records (lifecycle in <see cref="AlertBook"/>) and hands each change to the
+/// sinks, each through its own bounded queue. Records that cannot be saved (store down) are kept and saved later.
+/// Ticks the alert engine every second (stale telemetry, shelve expiry). Implements the operator commands.
+/// </summary>
+internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
+{
+    private readonly AlertEngine _engine;
+    private readonly IRunWatchStore _store;
+    private readonly IReadOnlyList<IAlertSink> _sinks;
+    private readonly IngestMetrics _metrics;
+    private readonly TimeProvider _timeProvider;
+    private readonly ILogger _logger;
+    private readonly AlertBook _book = new();
+    private readonly Lock _bookGate = new();
+    private readonly Dictionary<string, AlertRecord> _unsaved = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, string> _pendingUser = new(StringComparer.Ordinal);
+
+    public AlertDispatchService(AlertEngine engine, IRunWatchStore store, IEnumerable<IAlertSink> sinks, IOptions<AlertsOptions> options,
+        IngestMetrics metrics, TimeProvider timeProvider, ILogger<AlertDispatchService> logger)
+    {
+        _engine = engine;
+        _store = store;
+        var o = options.Value;
+        _sinks = [.. sinks.Where(s => s.Name switch { "mqtt" => o.PublishToMqtt, "log" => o.Log, "webhook" => !string.IsNullOrEmpty(o.WebhookUrl), _ => true })];
+        _metrics = metrics;
+        _timeProvider = timeProvider;
+        _logger = logger;
+    }
+
+    public async Task<bool> AcknowledgeAsync(long alertId, string user, CancellationToken cancellationToken)
+    {
+        var alert = await _store.GetAlertAsync(alertId, cancellationToken).ConfigureAwait(false);
+        if (alert is null || alert.State is AlertState.Normal or AlertState.Acknowledged)
+        {
+            return false;
+        }
+        lock (_bookGate)
+        {
+            _pendingUser[alert.Key] = user;
+        }
+        bool changed = alert.Chamber is null ? AcknowledgeStore() : _engine.Acknowledge(alert.Chamber, alert.Kind);
+        if (changed)
+        {
+            await _store.AppendAuditAsync(new AuditEntry(_timeProvider.GetUtcNow(), user, "alert-acknowledged", alertId.ToString(System.Globalization.CultureInfo.InvariantCulture), null), cancellationToken).ConfigureAwait(false);
+        }
+        return changed;
+    }
+
+    public async Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, CancellationToken cancellationToken)
+    {
+        var alert = await _store.GetAlertAsync(alertId, cancellationToken).ConfigureAwait(false);
+        if (alert is null || alert.Chamber is null || alert.State == AlertState.Normal)
+        {
+            return false;
+        }
+        bool changed = _engine.Shelve(alert.Chamber, alert.Kind, duration);
+        if (changed)
+        {
+            await _store.AppendAuditAsync(new AuditEntry(_timeProvider.GetUtcNow(), user, "alert-shelved", alertId.ToString(System.Globalization.CultureInfo.InvariantCulture),
+                "{\"seconds\":" + ((long)duration.TotalSeconds).ToString(System.Globalization.CultureInfo.InvariantCulture) + "}"), cancellationToken).ConfigureAwait(false);
+        }
+        return changed;
+    }
+
+    protected override async Task ExecuteAsync(CancellationToken stoppingToken)
+    {
+        try
+        {
+            var active = await _store.GetActiveAlertsAsync(stoppingToken).ConfigureAwait(false);
+            lock (_bookGate)
+            {
+                _book.Load(active);
+            }
+        }
+        catch (StoreUnavailableException)
+        {
+            // Start with an empty book; alerts raised now are saved once the store is back.
+        }
+        var queues = _sinks.Select(sink => (Sink: sink, Queue: Channel.CreateBounded<AlertNotification>(new BoundedChannelOptions(1000) { FullMode = BoundedChannelFullMode.DropOldest }))).ToArray();
+        var workers = queues.Select(q => RunSinkAsync(q.Sink, q.Queue.Reader, stoppingToken)).ToArray();
+        var ticks = TickAsync(stoppingToken);
+        try
+        {
+            await foreach (var signal in _engine.Signals.ReadAllAsync(stoppingToken).ConfigureAwait(false))
+            {
+                AlertNotification? notification = null;
+                lock (_bookGate)
+                {
+                    _pendingUser.Remove(signal.Key, out string? user);
+                    if (_book.Apply(signal, user) is { } change)
+                    {
+                        _unsaved[change.Alert.Key] = change.Alert;
+                        notification = new AlertNotification(change.Alert, change.Change, signal.Site);
+                    }
+                }
+                if (notification is null)
+                {
+                    continue;
+                }
+                var saved = await SaveUnsavedAsync(stoppingToken).ConfigureAwait(false);
+                if (saved.TryGetValue(notification.Alert.Key, out var withId))
+                {
+                    notification = notification with { Alert = withId };
+                }
+                foreach (var (_, queue) in queues)
+                {
+                    queue.Writer.TryWrite(notification);
+                }
+                _metrics.AlertsActive.Set(ActiveCount());
+            }
+        }
+        catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
+        {
+        }
+        foreach (var (_, queue) in queues)
+        {
+            queue.Writer.TryComplete();
+        }
+        await Task.WhenAll(workers).ConfigureAwait(false);
+        await ticks.ConfigureAwait(false);
+    }
+
+    private int ActiveCount()
+    {
+        lock (_bookGate)
+        {
+            return _book.Current.Count;
+        }
+    }
+
+    private bool AcknowledgeStore()
+    {
+        _engine.AcknowledgeStoreAlert();
+        return true;
+    }
+
+    private async Task<Dictionary<string, AlertRecord>> SaveUnsavedAsync(CancellationToken cancellationToken)
+    {
+        var saved = new Dictionary<string, AlertRecord>(StringComparer.Ordinal);
+        KeyValuePair<string, AlertRecord>[] pending;
+        lock (_bookGate)
+        {
+            pending = [.. _unsaved];
+        }
+        foreach (var (key, alert) in pending)
+        {
+            try
+            {
+                var stored = await _store.SaveAlertAsync(alert, cancellationToken).ConfigureAwait(false);
+                saved[key] = stored;
+                lock (_bookGate)
+                {
+                    // Keep the id for later changes of the same alert; drop the pending copy unless a newer one replaced it.
+                    if (_unsaved.TryGetValue(key, out var current) && ReferenceEquals(current, alert))
+                    {
+                        _unsaved.Remove(key);
+                    }
+                    else if (current is not null)
+                    {
+                        _unsaved[key] = current with { Id = stored.Id };
+                    }
+                    if (_book.Current.TryGetValue(key, out var inBook) && inBook.Id == 0)
+                    {
+                        _book.Update(inBook with { Id = stored.Id });
+                    }
+                }
+            }
+            catch (StoreUnavailableException ex)
+            {
+                Log.AlertStoreFailed(_logger, alert.Kind, alert.Chamber ?? "daemon", ex);
+                break;
+            }
+        }
+        return saved;
+    }
+
+    private async Task TickAsync(CancellationToken stoppingToken)
+    {
+        using var timer = new PeriodicTimer(TimeSpan.FromSeconds(1), _timeProvider);
+        try
+        {
+            while (await timer.WaitForNextTickAsync(stoppingToken).ConfigureAwait(false))
+            {
+                _engine.Tick(_timeProvider.GetUtcNow());
+                bool retry;
+                lock (_bookGate)
+                {
+                    retry = _unsaved.Count > 0;
+                }
+                if (retry)
+                {
+                    await SaveUnsavedAsync(stoppingToken).ConfigureAwait(false);
+                }
+            }
+        }
+        catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
+        {
+        }
+    }
+
+    private async Task RunSinkAsync(IAlertSink sink, ChannelReader<AlertNotification> queue, CancellationToken stoppingToken)
+    {
+        try
+        {
+            await foreach (var notification in queue.ReadAllAsync(stoppingToken).ConfigureAwait(false))
+            {
+                try
+                {
+                    await sink.SendAsync(notification, stoppingToken).ConfigureAwait(false);
+                }
+                catch (Exception ex) when (ex is not OperationCanceledException and not OutOfMemoryException)
+                {
+                    Log.AlertSinkFailed(_logger, sink.Name, notification.Alert.Id, ex);
+                }
+            }
+        }
+        catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
+        {
+        }
+    }
+}

@@ -1,0 +1,56 @@
+using System.Net;
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Options;
+using MQTTnet.Protocol;
+using MQTTnet.Server;
+using RunWatch.Ingest.Configuration;
+
+namespace RunWatch.Ingest.Mqtt;
+
+/// <summary>
+/// The embedded MQTTnet broker for a single box and the demo, bound to <see cref="BrokerOptions.Host"/> (loopback by
+/// default). Its sessions and queued messages live in memory only: what is queued for the daemon is lost if the
+/// daemon process dies. Checks the configured user name and password when one is set.
+/// </summary>
+internal sealed class EmbeddedBrokerService(IOptions<BrokerOptions> options, ILogger<EmbeddedBrokerService> logger) : IHostedService, IDisposable
+{
+    private MqttServer? _server;
+
+    public async Task StartAsync(CancellationToken cancellationToken)
+    {
+        var broker = options.Value;
+        var serverOptions = new MqttServerOptionsBuilder()
+            .WithDefaultEndpoint()
+            .WithDefaultEndpointBoundIPAddress(IPAddress.Parse(broker.Host))
+            .WithDefaultEndpointPort(broker.Port)
+            .WithPersistentSessions(true)
+            .WithMaxPendingMessagesPerClient(broker.EmbeddedMaxPendingMessagesPerClient)
+            .Build();
+        _server = new MqttServerFactory().CreateMqttServer(serverOptions);
+        if (!string.IsNullOrEmpty(broker.Username))
+        {
+            string? password = broker.PasswordFile is { Length: > 0 } file ? File.ReadAllText(file).TrimEnd('\r', '\n') : broker.Password;
+            _server.ValidatingConnectionAsync += e =>
+            {
+                if (e.UserName != broker.Username || e.Password != password)
+                {
+                    e.ReasonCode = MqttConnectReasonCode.BadUserNameOrPassword;
+                }
+                return Task.CompletedTask;
+            };
+        }
+        await _server.StartAsync().ConfigureAwait(false);
+        Log.EmbeddedStarted(logger, broker.Host, broker.Port);
+    }
+
+    public async Task StopAsync(CancellationToken cancellationToken)
+    {
+        if (_server is not null)
+        {
+            await _server.StopAsync(new MqttServerStopOptions()).ConfigureAwait(false);
+        }
+    }
+
+    public void Dispose() => _server?.Dispose();
+}

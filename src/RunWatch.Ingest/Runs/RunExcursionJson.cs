@@ -1,0 +1,12 @@
+namespace RunWatch.Ingest.Runs;
+
+/// <summary>One excursion of a run as stored in <c>runs.excursions_json</c>.</summary>
+/// <param name="Start">Start (UTC).</param>
+/// <param name="End">End (UTC).</param>
+/// <param name="DurationS">Duration, s.</param>
+/// <param name="PeakDeviationK">Signed peak deviation from the setpoint, K.</param>
+/// <param name="PeakValueC">True temperature at the peak, °C.</param>
+/// <param name="Severity">Highest band reached.</param>
+/// <param name="LengthChangeNm">Its effect on L_eff, nm (L_eff actual minus L_eff with the excursion at the setpoint).</param>
+/// <param name="Closed">False when the run ended during the excursion.</param>
+internal sealed record RunExcursionJson(DateTimeOffset Start, DateTimeOffset End, double DurationS, double PeakDeviationK, double PeakValueC, string Severity, double? LengthChangeNm, bool Closed);

@@ -1,0 +1,257 @@
+using Microsoft.Data.Sqlite;
+
+namespace RunWatch.Storage.Sqlite;
+
+/// <summary>Samples, events and dead letters.</summary>
+public sealed partial class SqliteRunWatchStore
+{
+    /// <inheritdoc />
+    public Task<BatchWriteResult> WriteBatchAsync(IngestBatch batch, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(batch);
+        if (batch.IsEmpty)
+        {
+            return Task.FromResult(default(BatchWriteResult));
+        }
+        return WriteAsync(connection =>
+        {
+            using var transaction = connection.BeginTransaction();
+            int inserted = InsertSamples(connection, transaction, batch);
+            int eventsInserted = InsertEvents(connection, transaction, batch.Events);
+            int deadLetters = InsertDeadLetters(connection, transaction, batch.DeadLetters);
+            transaction.Commit();
+            return new BatchWriteResult(inserted, batch.SampleCount - inserted, eventsInserted, batch.Events.Count - eventsInserted, deadLetters);
+        }, cancellationToken);
+    }
+
+    /// <inheritdoc />
+    public Task<IReadOnlyList<SampleRecord>> GetSamplesAsync(string chamber, string channel, DateTimeOffset from, DateTimeOffset to, int maxCount, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(chamber);
+        ArgumentNullException.ThrowIfNull(channel);
+        ArgumentOutOfRangeException.ThrowIfNegative(maxCount);
+        return ReadAsync<IReadOnlyList<SampleRecord>>(connection =>
+        {
+            var (chamberId, channelId) = ResolveChannel(connection, chamber, channel);
+            using var command = connection.CreateCommand();
+            command.CommandText = """
+                SELECT t_us, seq, value FROM samples
+                WHERE chamber_id = $c AND channel_id = $ch AND t_us >= $from AND t_us < $to
+                ORDER BY t_us, seq LIMIT $limit
+                """;
+            command.Parameters.AddWithValue("$c", chamberId);
+            command.Parameters.AddWithValue("$ch", channelId);
+            command.Parameters.AddWithValue("$from", UnixMicros.From(from));
+            command.Parameters.AddWithValue("$to", UnixMicros.From(to));
+            command.Parameters.AddWithValue("$limit", maxCount);
+            var result = new List<SampleRecord>();
+            using var reader = command.ExecuteReader();
+            while (reader.Read())
+            {
+                result.Add(new SampleRecord(UnixMicros.ToDateTimeOffset(reader.GetInt64(0)), reader.GetInt64(1), reader.GetDouble(2)));
+            }
+            return result;
+        }, cancellationToken);
+    }
+
+    /// <inheritdoc />
+    public Task<IReadOnlyList<EventRecord>> GetEventsAsync(string chamber, DateTimeOffset from, DateTimeOffset to, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(chamber);
+        return ReadAsync<IReadOnlyList<EventRecord>>(connection =>
+        {
+            long chamberId = ResolveChamber(connection, chamber);
+            using var command = connection.CreateCommand();
+            command.CommandText = """
+                SELECT t_us, type, run_name, text, payload_json FROM events
+                WHERE chamber_id = $c AND t_us >= $from AND t_us < $to ORDER BY t_us, id
+                """;
+            command.Parameters.AddWithValue("$c", chamberId);
+            command.Parameters.AddWithValue("$from", UnixMicros.From(from));
+            command.Parameters.AddWithValue("$to", UnixMicros.From(to));
+            var result = new List<EventRecord>();
+            using var reader = command.ExecuteReader();
+            while (reader.Read())
+            {
+                result.Add(new EventRecord(chamberId, UnixMicros.ToDateTimeOffset(reader.GetInt64(0)), reader.GetString(1),
+                    reader.IsDBNull(2) ? null : reader.GetString(2), reader.IsDBNull(3) ? null : reader.GetString(3), reader.GetString(4)));
+            }
+            return result;
+        }, cancellationToken);
+    }
+
+    /// <inheritdoc />
+    public Task<IReadOnlyList<DeadLetterRecord>> GetDeadLettersAsync(int maxCount, CancellationToken cancellationToken)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(maxCount);
+        return ReadAsync<IReadOnlyList<DeadLetterRecord>>(connection =>
+        {
+            using var command = connection.CreateCommand();
+            command.CommandText = "SELECT id, received_us, topic, reason, detail, payload, payload_len FROM dead_letters ORDER BY id DESC LIMIT $limit";
+            command.Parameters.AddWithValue("$limit", maxCount);
+            var result = new List<DeadLetterRecord>();
+            using var reader = command.ExecuteReader();
+            while (reader.Read())
+            {
+                byte[] payload = reader.IsDBNull(5) ? [] : (byte[])reader.GetValue(5);
+                result.Add(new DeadLetterRecord(reader.GetInt64(0), new DeadLetter(UnixMicros.ToDateTimeOffset(reader.GetInt64(1)), reader.GetString(2),
+                    reader.GetString(3), reader.IsDBNull(4) ? null : reader.GetString(4), payload, reader.GetInt32(6))));
+            }
+            return result;
+        }, cancellationToken);
+    }
+
+    private int InsertSamples(SqliteConnection connection, SqliteTransaction transaction, IngestBatch batch)
+    {
+        if (batch.SampleCount == 0)
+        {
+            return 0;
+        }
+        // One prepared statement reused for every row of every batch on the writer connection.
+        var command = _insertSample;
+        if (command is null)
+        {
+            command = connection.CreateCommand();
+            command.CommandText = "INSERT OR IGNORE INTO samples (chamber_id, channel_id, t_us, seq, value) VALUES ($c, $ch, $t, $s, $v)";
+            command.Parameters.Add("$c", SqliteType.Integer);
+            command.Parameters.Add("$ch", SqliteType.Integer);
+            command.Parameters.Add("$t", SqliteType.Integer);
+            command.Parameters.Add("$s", SqliteType.Integer);
+            command.Parameters.Add("$v", SqliteType.Real);
+            _insertSample = command;
+        }
+        command.Transaction = transaction;
+        var parameters = command.Parameters;
+        var samples = batch.Samples;
+        var inserted = batch.InsertedForWrite;
+        int count = 0;
+        for (int i = 0; i < samples.Length; i++)
+        {
+            ref readonly var sample = ref samples[i];
+            parameters[0].Value = sample.ChamberId;
+            parameters[1].Value = sample.ChannelId;
+            parameters[2].Value = sample.TimestampUs;
+            parameters[3].Value = sample.Seq;
+            parameters[4].Value = sample.Value;
+            bool isNew = command.ExecuteNonQuery() == 1;
+            inserted[i] = isNew;
+            if (isNew)
+            {
+                count++;
+            }
+        }
+        return count;
+    }
+
+    private static int InsertEvents(SqliteConnection connection, SqliteTransaction transaction, List<EventRecord> events)
+    {
+        if (events.Count == 0)
+        {
+            return 0;
+        }
+        using var command = connection.CreateCommand();
+        command.Transaction = transaction;
+        command.CommandText = """
+            INSERT OR IGNORE INTO events (chamber_id, t_us, type, run_name, text, payload_json)
+            VALUES ($c, $t, $type, $run, $text, $payload)
+            """;
+        var c = command.Parameters.Add("$c", SqliteType.Integer);
+        var t = command.Parameters.Add("$t", SqliteType.Integer);
+        var type = command.Parameters.Add("$type", SqliteType.Text);
+        var run = command.Parameters.Add("$run", SqliteType.Text);
+        var text = command.Parameters.Add("$text", SqliteType.Text);
+        var payload = command.Parameters.Add("$payload", SqliteType.Text);
+        int count = 0;
+        foreach (var e in events)
+        {
+            c.Value = e.ChamberId;
+            t.Value = UnixMicros.From(e.Timestamp);
+            type.Value = e.Type;
+            run.Value = (object?)e.RunName ?? DBNull.Value;
+            text.Value = (object?)e.Text ?? DBNull.Value;
+            payload.Value = e.PayloadJson;
+            count += command.ExecuteNonQuery();
+        }
+        return count;
+    }
+
+    private int InsertDeadLetters(SqliteConnection connection, SqliteTransaction transaction, List<DeadLetter> letters)
+    {
+        if (letters.Count == 0)
+        {
+            return 0;
+        }
+        using (var command = connection.CreateCommand())
+        {
+            command.Transaction = transaction;
+            command.CommandText = """
+                INSERT INTO dead_letters (received_us, topic, reason, detail, payload, payload_len)
+                VALUES ($t, $topic, $reason, $detail, $payload, $len)
+                """;
+            var t = command.Parameters.Add("$t", SqliteType.Integer);
+            var topic = command.Parameters.Add("$topic", SqliteType.Text);
+            var reason = command.Parameters.Add("$reason", SqliteType.Text);
+            var detail = command.Parameters.Add("$detail", SqliteType.Text);
+            var payload = command.Parameters.Add("$payload", SqliteType.Blob);
+            var len = command.Parameters.Add("$len", SqliteType.Integer);
+            foreach (var letter in letters)
+            {
+                var kept = letter.Payload.Length > _options.DeadLetterPayloadBytes ? letter.Payload[.._options.DeadLetterPayloadBytes] : letter.Payload;
+                t.Value = UnixMicros.From(letter.ReceivedAt);
+                topic.Value = letter.Topic;
+                reason.Value = letter.Reason;
+                detail.Value = (object?)letter.Detail ?? DBNull.Value;
+                payload.Value = kept.ToArray();
+                len.Value = letter.PayloadLength;
+                command.ExecuteNonQuery();
+            }
+        }
+        using (var trim = connection.CreateCommand())
+        {
+            // AUTOINCREMENT ids only grow, so the newest DeadLetterLimit rows are those above max(id) - limit.
+            trim.Transaction = transaction;
+            trim.CommandText = "DELETE FROM dead_letters WHERE id <= (SELECT MAX(id) FROM dead_letters) - $limit";
+            trim.Parameters.AddWithValue("$limit", _options.DeadLetterLimit);
+            trim.ExecuteNonQuery();
+        }
+        return letters.Count;
+    }
+
+    private long ResolveChamber(SqliteConnection connection, string chamber)
+    {
+        if (_chamberIds.TryGetValue(chamber, out long id))
+        {
+            return id;
+        }
+        using var command = connection.CreateCommand();
+        command.CommandText = "SELECT id FROM chambers WHERE name = $n";
+        command.Parameters.AddWithValue("$n", chamber);
+        object? value = command.ExecuteScalar();
+        if (value is not long found)
+        {
+            throw new KeyNotFoundException("Unknown chamber: " + chamber);
+        }
+        _chamberIds[chamber] = found;
+        return found;
+    }
+
+    private (long ChamberId, long ChannelId) ResolveChannel(SqliteConnection connection, string chamber, string channel)
+    {
+        long chamberId = ResolveChamber(connection, chamber);
+        if (_channelIds.TryGetValue((chamberId, channel), out long id))
+        {
+            return (chamberId, id);
+        }
+        using var command = connection.CreateCommand();
+        command.CommandText = "SELECT id FROM channels WHERE chamber_id = $c AND name = $n";
+        command.Parameters.AddWithValue("$c", chamberId);
+        command.Parameters.AddWithValue("$n", channel);
+        object? value = command.ExecuteScalar();
+        if (value is not long found)
+        {
+            throw new KeyNotFoundException("Unknown channel: " + chamber + "/" + channel);
+        }
+        _channelIds[(chamberId, channel)] = found;
+        return (chamberId, found);
+    }
+}

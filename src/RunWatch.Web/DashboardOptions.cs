@@ -1,0 +1,44 @@
+using System.ComponentModel.DataAnnotations;
+using RunWatch.Web.Security;
+
+namespace RunWatch.Web;
+
+/// <summary>Dashboard settings, bound from the configuration section <c>RunWatch:Dashboard</c>.</summary>
+public sealed class DashboardOptions
+{
+    public const string SectionName = "RunWatch:Dashboard";
+
+    /// <summary>Users allowed to log in. Serve mode creates none by default.</summary>
+    public List<ConfiguredUser> Users { get; set; } = [];
+
+    /// <summary>IANA or Windows time-zone id for displayed times; empty means the machine's local zone.</summary>
+    public string TimeZone { get; set; } = "";
+
+    /// <summary>Most points any chart ships to the browser.</summary>
+    /// <value>5000.</value>
+    [Range(100, 50_000)]
+    public int MaxChartPoints { get; set; } = 5000;
+
+    /// <summary>Span of the chamber page's live chart.</summary>
+    /// <value>30 minutes.</value>
+    public TimeSpan LiveWindow { get; set; } = TimeSpan.FromMinutes(30);
+
+    /// <summary>Shortest interval between two redraws of one live chart.</summary>
+    /// <value>250 ms.</value>
+    public TimeSpan LiveRedrawInterval { get; set; } = TimeSpan.FromMilliseconds(250);
+
+    /// <summary>Deviation from setpoint at which the chart's warning band ends, in kelvin.</summary>
+    /// <value>3 K.</value>
+    public double WarningBandK { get; set; } = 3;
+
+    /// <summary>Deviation from setpoint at which the chart's alarm band ends, in kelvin.</summary>
+    /// <value>8 K.</value>
+    public double AlarmBandK { get; set; } = 8;
+
+    /// <summary>Parameters of the planner's built-in model.</summary>
+    public PlannerOptions Planner { get; set; } = new();
+
+    /// <summary>Longest shelving an engineer may choose.</summary>
+    /// <value>24 hours.</value>
+    public TimeSpan MaxShelveDuration { get; set; } = TimeSpan.FromHours(24);
+}

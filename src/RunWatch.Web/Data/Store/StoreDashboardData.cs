@@ -1,0 +1,257 @@
+using System.Globalization;
+using System.Text.Json;
+using Microsoft.Extensions.Options;
+using RunWatch.Storage;
+using StoredAlertState = RunWatch.Storage.AlertState;
+using StoredAudit = RunWatch.Storage.AuditEntry;
+
+namespace RunWatch.Web.Data.Store;
+
+/// <summary>
+/// The dashboard's read model and actions over the daemon's store (<see cref="IRunWatchStore"/>) and alert
+/// commands (<see cref="IAlertCommands"/>): chambers, telemetry, runs, alerts and audit. Wafers, fields, reports,
+/// specs and process models are not in the store's interface yet; those queries report nothing stored.
+/// </summary>
+public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands alerts, TimeProvider time, IOptions<DashboardOptions> options)
+    : IDashboardQueries, IDashboardCommands
+{
+    private const int MaxSamples = 2_000_000;
+
+    public async Task<IReadOnlyList<ChamberStatus>> GetChambersAsync(CancellationToken cancellationToken)
+    {
+        var chambers = await store.ListChambersAsync(cancellationToken).ConfigureAwait(false);
+        var result = new List<ChamberStatus>(chambers.Count);
+        foreach (var c in chambers)
+        {
+            result.Add(await ComposeAsync(c, cancellationToken).ConfigureAwait(false));
+        }
+        return result;
+    }
+
+    public async Task<ChamberStatus?> GetChamberAsync(string chamber, CancellationToken cancellationToken)
+    {
+        var chambers = await store.ListChambersAsync(cancellationToken).ConfigureAwait(false);
+        var c = chambers.FirstOrDefault(x => x.Definition.Name == chamber);
+        return c is null ? null : await ComposeAsync(c, cancellationToken).ConfigureAwait(false);
+    }
+
+    public async Task<SampleSeries> GetSamplesAsync(string chamber, string channel, DateTimeOffset from, DateTimeOffset to, CancellationToken cancellationToken)
+    {
+        IReadOnlyList<SampleRecord> rows;
+        try
+        {
+            // The store's range is half-open at microsecond resolution; the dashboard's is closed.
+            rows = await store.GetSamplesAsync(chamber, channel, from, to.AddTicks(10), MaxSamples, cancellationToken).ConfigureAwait(false);
+        }
+        catch (KeyNotFoundException)
+        {
+            return new SampleSeries([], []);
+        }
+        var t = new double[rows.Count];
+        var v = new double[rows.Count];
+        for (int i = 0; i < rows.Count; i++)
+        {
+            t[i] = rows[i].Timestamp.ToUnixTimeMilliseconds() / 1000.0;
+            v[i] = rows[i].Value;
+        }
+        return new SampleSeries(t, v);
+    }
+
+    public async Task<IReadOnlyList<RunSummary>> GetRunsAsync(CancellationToken cancellationToken)
+    {
+        var runs = await store.ListRunsAsync(null, null, 1000, cancellationToken).ConfigureAwait(false);
+        return runs.Select(ToSummary).ToList();
+    }
+
+    public async Task<RunDetail?> GetRunAsync(string runId, CancellationToken cancellationToken)
+    {
+        var runs = await store.ListRunsAsync(null, null, 1000, cancellationToken).ConfigureAwait(false);
+        var run = runs.FirstOrDefault(r => r.Name == runId);
+        if (run is null)
+        {
+            return null;
+        }
+        var chambers = await store.ListChambersAsync(cancellationToken).ConfigureAwait(false);
+        string channel = chambers.FirstOrDefault(c => c.Definition.Name == run.Chamber)?.Definition.Channels
+            .FirstOrDefault(ch => ch.Role == ChannelRole.GrowthTemperature)?.Name ?? "substrate_tc";
+        ThermalResult? thermal = null;
+        double c = ConventionFactor(run.SummaryJson);
+        if (run.LEffNm is { } leff && run.TEffC is { } teff)
+        {
+            thermal = new ThermalResult(run.LNomNm ?? double.NaN, leff, teff, c, (run.Coverage ?? 0) * 100, double.NaN, double.NaN);
+        }
+        return new RunDetail(ToSummary(run), thermal, Excursions(run.ExcursionsJson, run.LEffNm), null, channel);
+    }
+
+    public Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken) => Task.FromResult<WaferDetail?>(null);
+
+    public Task<ReportFile?> GetFieldImageAsync(string fieldId, bool overlay, CancellationToken cancellationToken) => Task.FromResult<ReportFile?>(null);
+
+    public Task<IReadOnlyList<UnmatchedField>> GetUnmatchedFieldsAsync(CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<UnmatchedField>>([]);
+
+    public Task<ReportFile?> GetReportAsync(string waferId, string format, CancellationToken cancellationToken) => Task.FromResult<ReportFile?>(null);
+
+    public async Task<IReadOnlyList<AlertView>> GetAlertsAsync(CancellationToken cancellationToken)
+    {
+        var now = time.GetUtcNow();
+        var active = await store.GetActiveAlertsAsync(cancellationToken).ConfigureAwait(false);
+        var history = await store.GetAlertHistoryAsync(now.AddDays(-30), now.AddSeconds(1), 500, cancellationToken).ConfigureAwait(false);
+        var runs = (await store.ListRunsAsync(null, null, 1000, cancellationToken).ConfigureAwait(false)).ToDictionary(r => r.Id, r => r.Name);
+        return active.Concat(history).DistinctBy(a => a.Id).OrderByDescending(a => a.RaisedAt)
+            .Select(a => new AlertView(a.Id.ToString(CultureInfo.InvariantCulture), a.Chamber ?? "daemon",
+                a.RunId is { } r && runs.TryGetValue(r, out var name) ? name : null, a.Message,
+                a.Severity == Storage.AlertSeverity.High ? AlertSeverity.Alarm : AlertSeverity.Warning, Map(a.State), a.RaisedAt, a.ClearedAt,
+                a.AcknowledgedBy, null, null, null))
+            .ToList();
+    }
+
+    public Task<IReadOnlyList<string>> GetProcessesAsync(CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<string>>([]);
+
+    public Task<ProcessModelView?> GetProcessModelAsync(string process, CancellationToken cancellationToken) => Task.FromResult<ProcessModelView?>(null);
+
+    public Task<IReadOnlyList<SpecEntry>> GetSpecsAsync(CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<SpecEntry>>([]);
+
+    public Task<IReadOnlyList<AuditEntry>> GetAuditAsync(int maxEntries, CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<AuditEntry>>([]);
+
+    public async Task AcknowledgeAlertAsync(string alertId, string user, string comment, CancellationToken cancellationToken)
+    {
+        long id = ParseId(alertId);
+        if (!await alerts.AcknowledgeAsync(id, user, cancellationToken).ConfigureAwait(false))
+        {
+            throw new InvalidOperationException($"Alert {alertId} is unknown or has nothing to acknowledge.");
+        }
+        await RecordCommentAsync(user, "alert acknowledged", alertId, comment, cancellationToken).ConfigureAwait(false);
+    }
+
+    public async Task ShelveAlertAsync(string alertId, string user, string comment, DateTimeOffset until, CancellationToken cancellationToken)
+    {
+        long id = ParseId(alertId);
+        var duration = until - time.GetUtcNow();
+        if (duration <= TimeSpan.Zero || !await alerts.ShelveAsync(id, duration, user, cancellationToken).ConfigureAwait(false))
+        {
+            throw new InvalidOperationException($"Alert {alertId} is unknown, already normal, or the shelf would not expire in the future.");
+        }
+        await RecordCommentAsync(user, "alert shelved", alertId, comment, cancellationToken).ConfigureAwait(false);
+    }
+
+    public Task AssignFieldAsync(string fieldId, string waferId, string user, CancellationToken cancellationToken) =>
+        throw new InvalidOperationException("Field assignment is not available: the store holds no SEM fields yet.");
+
+    public Task RefitModelAsync(string process, string user, CancellationToken cancellationToken) =>
+        throw new InvalidOperationException("Refitting is not available: the store holds no process models yet.");
+
+    public Task AcceptModelAsync(string process, string user, CancellationToken cancellationToken) =>
+        throw new InvalidOperationException("Accepting a model is not available: the store holds no process models yet.");
+
+    public Task UpdateSpecAsync(SpecEntry spec, string user, CancellationToken cancellationToken) =>
+        throw new InvalidOperationException("Specs are not stored yet.");
+
+    public Task RecordAuditAsync(AuditEntry entry, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(entry);
+        return store.AppendAuditAsync(new StoredAudit(entry.At, entry.User, entry.Action, entry.Subject,
+            JsonSerializer.Serialize(new Dictionary<string, string> { ["detail"] = entry.Detail })), cancellationToken);
+    }
+
+    private Task RecordCommentAsync(string user, string action, string alertId, string comment, CancellationToken cancellationToken) =>
+        string.IsNullOrWhiteSpace(comment)
+            ? Task.CompletedTask
+            : RecordAuditAsync(new AuditEntry(time.GetUtcNow(), user, action + " (comment)", "alert " + alertId, comment), cancellationToken);
+
+    private async Task<ChamberStatus> ComposeAsync(RegisteredChamber chamber, CancellationToken cancellationToken)
+    {
+        var now = time.GetUtcNow();
+        var latest = new Dictionary<string, double>(StringComparer.Ordinal);
+        DateTimeOffset? lastAt = null;
+        foreach (var channel in chamber.Channels)
+        {
+            // Latest value within the live window; older values are not "latest" for reminders and the overview.
+            var rows = await store.GetSamplesAsync(chamber.Definition.Name, channel.Definition.Name, now - options.Value.LiveWindow, now.AddSeconds(1),
+                MaxSamples, cancellationToken).ConfigureAwait(false);
+            if (rows.Count == 0)
+            {
+                continue;
+            }
+            latest[channel.Definition.Name] = rows[^1].Value;
+            if (lastAt is null || rows[^1].Timestamp > lastAt)
+            {
+                lastAt = rows[^1].Timestamp;
+            }
+        }
+        var defs = chamber.Definition.Channels;
+        string temperature = defs.FirstOrDefault(c => c.Role == ChannelRole.GrowthTemperature)?.Name ?? "substrate_tc";
+        string setpoint = defs.FirstOrDefault(c => c.Role == ChannelRole.Setpoint)?.Name ?? "substrate_sp";
+        var runs = await store.ListRunsAsync(chamber.Definition.Name, null, 20, cancellationToken).ConfigureAwait(false);
+        var open = runs.FirstOrDefault(r => r.Status == RunStatus.Open);
+        var lastEnded = runs.Where(r => r.EndedAt is not null).Max(r => r.EndedAt);
+        var active = await store.GetActiveAlertsAsync(cancellationToken).ConfigureAwait(false);
+        return new ChamberStatus(chamber.Definition.Name, chamber.Definition.Site,
+            latest.TryGetValue(temperature, out double t) ? t : null,
+            latest.TryGetValue(setpoint, out double sp) ? sp : open?.SetpointC,
+            temperature, setpoint, "°C", lastAt, open is null ? null : ToSummary(open), lastEnded,
+            active.Count(a => a.Chamber == chamber.Definition.Name), latest, new TemperatureBands(options.Value.WarningBandK, options.Value.AlarmBandK));
+    }
+
+    private static RunSummary ToSummary(RunRecord r)
+    {
+        GrowthWindow? window = null;
+        if (r.SummaryJson is { Length: > 0 } json)
+        {
+            using var doc = JsonDocument.Parse(json);
+            if (doc.RootElement.TryGetProperty("windowStartS", out var ws) && doc.RootElement.TryGetProperty("windowEndS", out var we))
+            {
+                window = new GrowthWindow(r.StartedAt.AddSeconds(ws.GetDouble()), r.StartedAt.AddSeconds(we.GetDouble()));
+            }
+        }
+        int excursions = 0;
+        if (r.ExcursionsJson is { Length: > 0 } ex)
+        {
+            using var doc = JsonDocument.Parse(ex);
+            excursions = doc.RootElement.GetArrayLength();
+        }
+        return new RunSummary(r.Name, r.Chamber, r.Recipe ?? "—", r.StartedAt, r.EndedAt, r.SetpointC ?? double.NaN,
+            TimeSpan.FromSeconds(r.PlannedSeconds ?? 0), window, r.Wafers, excursions, null);
+    }
+
+    private static double ConventionFactor(string? summaryJson)
+    {
+        if (summaryJson is not { Length: > 0 })
+        {
+            return double.NaN;
+        }
+        using var doc = JsonDocument.Parse(summaryJson);
+        return doc.RootElement.TryGetProperty("conventionFactor", out var c) ? c.GetDouble() : double.NaN;
+    }
+
+    private static List<ExcursionView> Excursions(string? json, double? lEffNm)
+    {
+        var list = new List<ExcursionView>();
+        if (json is not { Length: > 0 })
+        {
+            return list;
+        }
+        using var doc = JsonDocument.Parse(json);
+        foreach (var e in doc.RootElement.EnumerateArray())
+        {
+            double changeNm = e.TryGetProperty("lengthChangeNm", out var ch) && ch.ValueKind == JsonValueKind.Number ? ch.GetDouble() : double.NaN;
+            string severity = e.GetProperty("severity").GetString() ?? "";
+            list.Add(new ExcursionView(e.GetProperty("start").GetDateTimeOffset(), e.GetProperty("end").GetDateTimeOffset(),
+                e.GetProperty("peakDeviationK").GetDouble(),
+                severity.Contains("alarm", StringComparison.OrdinalIgnoreCase) ? AlertSeverity.Alarm : AlertSeverity.Warning,
+                lEffNm is { } l && l > 0 ? changeNm / l * 100 : double.NaN));
+        }
+        return list;
+    }
+
+    private static Data.AlertState Map(StoredAlertState state) => state switch
+    {
+        StoredAlertState.Unacknowledged => Data.AlertState.ActiveUnacknowledged,
+        StoredAlertState.Acknowledged => Data.AlertState.ActiveAcknowledged,
+        StoredAlertState.ReturnedUnacknowledged => Data.AlertState.ReturnedUnacknowledged,
+        StoredAlertState.Shelved => Data.AlertState.Shelved,
+        _ => Data.AlertState.Normal,
+    };
+
+    private static long ParseId(string alertId) =>
+        long.TryParse(alertId, NumberStyles.None, CultureInfo.InvariantCulture, out long id) ? id : throw new KeyNotFoundException($"No alert '{alertId}'.");
+}

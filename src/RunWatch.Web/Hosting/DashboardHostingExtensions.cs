@@ -1,0 +1,179 @@
+using System.Security.Claims;
+using System.Text.Json.Serialization;
+using Microsoft.AspNetCore.Authentication;
+using Microsoft.AspNetCore.Authentication.Cookies;
+using Microsoft.AspNetCore.Builder;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Http;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Options;
+using RunWatch.Core.Safety;
+using RunWatch.Web.Api;
+using RunWatch.Web.Components;
+using RunWatch.Web.Live;
+using RunWatch.Web.Safety;
+using RunWatch.Web.Security;
+
+namespace RunWatch.Web.Hosting;
+
+/// <summary>
+/// Composition of the dashboard: <c>builder.AddRunWatchDashboard()</c> before Build, <c>app.MapRunWatchDashboard()</c>
+/// after. The host must also register <see cref="Data.IDashboardQueries"/>, <see cref="Data.IDashboardCommands"/>
+/// and <see cref="Data.IPlannerEngine"/>.
+/// </summary>
+public static partial class DashboardHostingExtensions
+{
+    /// <summary>Default address: loopback only.</summary>
+    public const string DefaultUrl = "http://127.0.0.1:5080";
+
+    /// <summary>Registers the dashboard's services, authentication and options (section RunWatch:Dashboard).</summary>
+    public static WebApplicationBuilder AddRunWatchDashboard(this WebApplicationBuilder builder)
+    {
+        ArgumentNullException.ThrowIfNull(builder);
+        if (string.IsNullOrEmpty(builder.Configuration["urls"]) && string.IsNullOrEmpty(builder.Configuration["ASPNETCORE_URLS"]))
+        {
+            builder.WebHost.UseUrls(DefaultUrl);
+        }
+        var services = builder.Services;
+        services.AddOptions<DashboardOptions>().Bind(builder.Configuration.GetSection(DashboardOptions.SectionName))
+            .ValidateDataAnnotations().ValidateOnStart();
+        services.TryAddSingleton(TimeProvider.System);
+        services.TryAddSingleton<DashboardClock>();
+        services.TryAddSingleton<LiveUpdateHub>();
+        services.TryAddSingleton<ITelemetryNotifier>(sp => sp.GetRequiredService<LiveUpdateHub>());
+        services.TryAddSingleton(sp => new ReminderRuleSet(DefaultReminders.All));
+        services.TryAddSingleton<ReminderMonitor>();
+        services.TryAddSingleton(sp =>
+        {
+            var directory = new UserDirectory();
+            foreach (var user in sp.GetRequiredService<IOptions<DashboardOptions>>().Value.Users)
+            {
+                directory.Add(new DashboardUser(user.Name, user.Role, user.PasswordHash));
+            }
+            return directory;
+        });
+
+        services.AddRazorComponents().AddInteractiveServerComponents();
+        services.AddCascadingAuthenticationState();
+        services.AddAuthentication(CookieAuthenticationDefaults.AuthenticationScheme).AddCookie(options =>
+        {
+            options.LoginPath = "/login";
+            options.LogoutPath = "/account/logout";
+            options.AccessDeniedPath = "/login";
+            options.Cookie.Name = "runwatch.auth";
+            options.Cookie.HttpOnly = true;
+            options.Cookie.SameSite = SameSiteMode.Strict;
+            options.Cookie.SecurePolicy = CookieSecurePolicy.SameAsRequest;
+            options.ExpireTimeSpan = TimeSpan.FromHours(12);
+            options.SlidingExpiration = true;
+            // The API answers 401/403 instead of redirecting to the login page.
+            options.Events.OnRedirectToLogin = ctx => ApiOr(ctx, StatusCodes.Status401Unauthorized);
+            options.Events.OnRedirectToAccessDenied = ctx => ApiOr(ctx, StatusCodes.Status403Forbidden);
+        });
+        services.AddAuthorizationBuilder()
+            .AddPolicy(DashboardRoles.CanActPolicy, p => p.RequireRole(DashboardRoles.Engineer, DashboardRoles.Admin))
+            .AddPolicy(DashboardRoles.AdminPolicy, p => p.RequireRole(DashboardRoles.Admin));
+        services.AddAntiforgery();
+        services.ConfigureHttpJsonOptions(o => o.SerializerOptions.Converters.Add(new JsonStringEnumConverter()));
+        services.AddOpenApi("v1");
+        return builder;
+    }
+
+    /// <summary>
+    /// Registers the dashboard's data over the daemon's store: <see cref="Data.Store.StoreDashboardData"/> for the
+    /// queries and commands (needs <see cref="Storage.IRunWatchStore"/> and <see cref="Storage.IAlertCommands"/>), and
+    /// the built-in planner with the parameters of RunWatch:Dashboard:Planner unless a planner is registered already.
+    /// </summary>
+    public static IServiceCollection AddRunWatchDashboardStoreData(this IServiceCollection services)
+    {
+        ArgumentNullException.ThrowIfNull(services);
+        services.TryAddSingleton<Data.Store.StoreDashboardData>();
+        services.TryAddSingleton<Data.IDashboardQueries>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
+        services.TryAddSingleton<Data.IDashboardCommands>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
+        services.TryAddSingleton<Data.IPlannerEngine>(sp =>
+        {
+            var p = sp.GetRequiredService<IOptions<DashboardOptions>>().Value.Planner;
+            return new Data.InMemory.ScenarioPlanner(p.D0CmSquaredPerSecond, p.ActivationEnergyEv, p.RadiusInterceptNm, p.RadiusSlopeNm);
+        });
+        return services;
+    }
+
+    /// <summary>Adds the middleware, the pages, the login endpoints, the REST API under /api and /openapi/v1.json.</summary>
+    public static WebApplication MapRunWatchDashboard(this WebApplication app)
+    {
+        ArgumentNullException.ThrowIfNull(app);
+        var users = app.Services.GetRequiredService<UserDirectory>();
+        if (users.Count == 0)
+        {
+            LogNoUsers(app.Logger, DashboardOptions.SectionName);
+        }
+        app.UseAuthentication();
+        app.UseAuthorization();
+        app.UseAntiforgery();
+        app.MapStaticAssets().AllowAnonymous();
+        app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
+        MapAccount(app);
+        app.MapDashboardApi();
+        app.MapOpenApi().RequireAuthorization();
+        return app;
+    }
+
+    /// <summary>Demo mode only: creates one demo user per role with fresh random passwords and returns them to print.</summary>
+    public static IReadOnlyList<DemoCredential> CreateRunWatchDemoUsers(this WebApplication app)
+    {
+        ArgumentNullException.ThrowIfNull(app);
+        return app.Services.GetRequiredService<UserDirectory>().CreateDemoUsers();
+    }
+
+    private static void MapAccount(WebApplication app)
+    {
+        app.MapPost("/account/login", async (HttpContext http, UserDirectory users, ILoggerFactory loggers,
+            [FromForm] string username, [FromForm] string password, [FromForm] string? returnUrl) =>
+        {
+            var user = users.Verify(username, password);
+            var log = loggers.CreateLogger("RunWatch.Web.Login");
+            if (user is null)
+            {
+                LogLoginRefused(log);
+                return Results.Redirect("/login?error=1");
+            }
+            var identity = new ClaimsIdentity(
+                [new Claim(ClaimTypes.Name, user.Name), new Claim(ClaimTypes.Role, user.Role)],
+                CookieAuthenticationDefaults.AuthenticationScheme);
+            await http.SignInAsync(CookieAuthenticationDefaults.AuthenticationScheme, new ClaimsPrincipal(identity));
+            LogLoggedIn(log, user.Name, user.Role);
+            bool local = returnUrl is { Length: > 0 } r && r.StartsWith('/') && !r.StartsWith("//", StringComparison.Ordinal) && !r.StartsWith("/\\", StringComparison.Ordinal);
+            return Results.LocalRedirect(local ? returnUrl! : "/");
+        }).AllowAnonymous();
+
+        app.MapPost("/account/logout", async (HttpContext http) =>
+        {
+            await http.SignOutAsync(CookieAuthenticationDefaults.AuthenticationScheme);
+            return Results.Redirect("/login");
+        }).AllowAnonymous();
+    }
+
+    private static Task ApiOr(RedirectContext<CookieAuthenticationOptions> context, int status)
+    {
+        if (context.Request.Path.StartsWithSegments("/api") || context.Request.Path.StartsWithSegments("/openapi"))
+        {
+            context.Response.StatusCode = status;
+            return Task.CompletedTask;
+        }
+        context.Response.Redirect(context.RedirectUri);
+        return Task.CompletedTask;
+    }
+
+    [LoggerMessage(EventId = 6010, Level = LogLevel.Warning, Message = "No dashboard users are configured (section {Section}:Users); nobody can log in until an administrator adds one")]
+    private static partial void LogNoUsers(ILogger logger, string section);
+
+    [LoggerMessage(EventId = 6011, Level = LogLevel.Information, Message = "Dashboard login refused")]
+    private static partial void LogLoginRefused(ILogger logger);
+
+    [LoggerMessage(EventId = 6012, Level = LogLevel.Information, Message = "Dashboard login: {User} ({Role})")]
+    private static partial void LogLoggedIn(ILogger logger, string user, string role);
+}

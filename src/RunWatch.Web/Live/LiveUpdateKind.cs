@@ -1,0 +1,9 @@
+namespace RunWatch.Web.Live;
+
+/// <summary>What changed.</summary>
+public enum LiveUpdateKind
+{
+    Samples,
+    Alerts,
+    Runs,
+}

@@ -1,0 +1,20 @@
+namespace RunWatch.Web;
+
+/// <summary>
+/// Process parameters the planner uses when no process model is plugged in (section RunWatch:Dashboard:Planner).
+/// The planner page shows them, so nobody mistakes them for a fitted model.
+/// </summary>
+public sealed class PlannerOptions
+{
+    /// <summary>Arrhenius prefactor D0 in cm²/s.</summary>
+    public double D0CmSquaredPerSecond { get; set; } = 2.5e-5;
+
+    /// <summary>Activation energy Ea in eV.</summary>
+    public double ActivationEnergyEv { get; set; } = 1.3;
+
+    /// <summary>Radius model intercept A in nm (r = A + B·Â).</summary>
+    public double RadiusInterceptNm { get; set; } = 20.4;
+
+    /// <summary>Radius model slope B in nm (r = A + B·Â).</summary>
+    public double RadiusSlopeNm { get; set; } = 21.6;
+}

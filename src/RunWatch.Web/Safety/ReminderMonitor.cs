@@ -1,0 +1,62 @@
+using System.Collections.Concurrent;
+using RunWatch.Core.Safety;
+using RunWatch.Web.Data;
+
+namespace RunWatch.Web.Safety;
+
+/// <summary>
+/// Evaluates the reminder rules on a chamber's status and records in the audit log each time a reminder is shown
+/// to a user: once per user for each stretch of time in which the reminder's condition holds.
+/// </summary>
+public sealed class ReminderMonitor(ReminderRuleSet rules, IDashboardCommands commands, DashboardClock clock)
+{
+    private readonly ConcurrentDictionary<(string Chamber, string Rule), long> _activation = new();
+    private readonly ConcurrentDictionary<(string Chamber, string Rule, string User, long Activation), byte> _logged = new();
+    private long _nextActivation;
+
+    /// <summary>The reminders that hold now for one chamber.</summary>
+    public IReadOnlyList<ActiveReminder> Evaluate(ChamberStatus chamber)
+    {
+        ArgumentNullException.ThrowIfNull(chamber);
+        var state = new LiveChamberState(chamber.Chamber, clock.Now, chamber.LastSampleAt, chamber.LatestValues,
+            chamber.ActiveRun is not null, chamber.LastRunEndedAt);
+        var active = ReminderEvaluator.Evaluate(rules.Rules, state);
+        foreach (var rule in rules.Rules)
+        {
+            bool holds = active.Any(a => a.Rule.Id == rule.Id);
+            if (holds)
+            {
+                _activation.GetOrAdd((chamber.Chamber, rule.Id), _ => Interlocked.Increment(ref _nextActivation));
+            }
+            else
+            {
+                _activation.TryRemove((chamber.Chamber, rule.Id), out _);
+            }
+        }
+        return active;
+    }
+
+    /// <summary>Records that the reminders were shown to the user (once per activation).</summary>
+    public async Task RecordShownAsync(IReadOnlyList<ActiveReminder> shown, string user, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(shown);
+        foreach (var reminder in shown)
+        {
+            if (!_activation.TryGetValue((reminder.Chamber, reminder.Rule.Id), out long activation))
+            {
+                continue;
+            }
+            if (_logged.TryAdd((reminder.Chamber, reminder.Rule.Id, user, activation), 0))
+            {
+                await commands.RecordAuditAsync(
+                    new AuditEntry(clock.Now, user, "reminder shown", reminder.Chamber + " / " + reminder.Rule.Id, reminder.Reason),
+                    cancellationToken).ConfigureAwait(false);
+            }
+        }
+    }
+
+    /// <summary>Whether a reminder's showing to this user in its current activation is in the audit log.</summary>
+    public bool IsLogged(ActiveReminder reminder, string user) =>
+        _activation.TryGetValue((reminder.Chamber, reminder.Rule.Id), out long activation)
+        && _logged.ContainsKey((reminder.Chamber, reminder.Rule.Id, user, activation));
+}

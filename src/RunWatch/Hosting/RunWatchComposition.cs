@@ -1,0 +1,34 @@
+using Microsoft.Extensions.DependencyInjection.Extensions;
+using RunWatch.Ingest.Alerts;
+using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Wafers;
+using RunWatch.Web.Hosting;
+
+namespace RunWatch.Hosting;
+
+/// <summary>
+/// The whole program in one host, shared by <c>serve</c> and <c>demo</c>: the daemon, the wafer pipeline and the
+/// dashboard with its live push.
+/// </summary>
+internal static class RunWatchComposition
+{
+    public static WebApplicationBuilder AddRunWatch(this WebApplicationBuilder builder, string[] args)
+    {
+        builder.AddRunWatchDaemon(args);
+        builder.Services.AddRunWatchWaferPipeline(builder.Configuration);
+        builder.AddRunWatchDashboard();
+        builder.Services.AddRunWatchDashboardStoreData();
+        builder.Services.TryAddSingleton<DashboardLiveBridge>();
+        builder.Services.AddSingleton<IIngestCommitListener>(sp => sp.GetRequiredService<DashboardLiveBridge>());
+        builder.Services.AddSingleton<IAlertListener>(sp => sp.GetRequiredService<DashboardLiveBridge>());
+        return builder;
+    }
+
+    public static WebApplication MapRunWatch(this WebApplication app)
+    {
+        app.MapRunWatchDaemon();
+        app.MapRunWatchDashboard();
+        app.MapRunWatchFieldUpload().RequireAuthorization(RunWatch.Web.Security.DashboardRoles.CanActPolicy);
+        return app;
+    }
+}

@@ -1,0 +1,99 @@
+using Microsoft.Data.Sqlite;
+using Microsoft.Extensions.Options;
+using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Runs;
+using RunWatch.Ingest.Tests.Support;
+using RunWatch.Storage;
+using RunWatch.Storage.Sqlite;
+
+namespace RunWatch.Ingest.Tests.Runs;
+
+public sealed class RunEvaluatorTests : IDisposable
+{
+    private static readonly DateTimeOffset T0 = Batches.T0;
+    private readonly string _folder = Directory.CreateTempSubdirectory("runwatch-eval-").FullName;
+    private readonly SqliteRunWatchStore _store;
+
+    public RunEvaluatorTests()
+    {
+        _store = new SqliteRunWatchStore(Options.Create(new StorageOptions { DataDirectory = _folder }), TimeProvider.System);
+    }
+
+    [Fact]
+    public async Task EvaluateAsync_ConstantAtSetpoint_LEffEqualsLNomFromTheFormula()
+    {
+        var chamber = await SetUpAsync(t => 600.0);
+
+        var run = await new RunEvaluator(_store).EvaluateAsync(Run(), chamber, CancellationToken.None);
+
+        // DERIVED: L = sqrt(c·D0·exp(−Ea/(kB·T))·t) with T = 600 °C + 273.15 (ITS-90), kB = 8.617333262e-5 eV/K (CODATA 2018,
+        // CONFIRMED in shared CHECKS.md), c = 1, t = 1000 s; D0 = 1e-2 cm²/s and Ea = 1.3 eV are the invented defaults.
+        double expectedNm = Math.Sqrt(1e-2 * Math.Exp(-1.3 / (8.617333262e-5 * 873.15)) * 1000.0) * 1e7;
+        Assert.NotNull(run.LNomNm);
+        Assert.NotNull(run.LEffNm);
+        Assert.Equal(expectedNm, run.LNomNm.Value, expectedNm * 1e-9);
+        Assert.Equal(expectedNm, run.LEffNm.Value, expectedNm * 1e-6);
+        Assert.Equal(600.0, run.TEffC!.Value, 1e-6);
+        Assert.Equal(1.0, run.Coverage!.Value, 1e-9);
+        Assert.Equal("[]", run.ExcursionsJson);
+    }
+
+    [Fact]
+    public async Task EvaluateAsync_HotExcursion_ReportedWithPositiveEffectOnL()
+    {
+        var chamber = await SetUpAsync(t => t is >= 400 and < 460 ? 620.0 : 600.0);
+
+        var run = await new RunEvaluator(_store).EvaluateAsync(Run(), chamber, CancellationToken.None);
+
+        Assert.True(run.LEffNm > run.LNomNm);
+        Assert.Contains("\"severity\":\"Alarm\"", run.ExcursionsJson, StringComparison.Ordinal);
+        using var doc = System.Text.Json.JsonDocument.Parse(run.ExcursionsJson!);
+        var excursion = Assert.Single(doc.RootElement.EnumerateArray());
+        Assert.True(excursion.GetProperty("lengthChangeNm").GetDouble() > 0);
+        Assert.Equal(20.0, excursion.GetProperty("peakDeviationK").GetDouble(), 1e-9);
+        // The change in L equals L_eff minus the length with the excursion at the setpoint, i.e. L_eff − L_nom here.
+        Assert.Equal(run.LEffNm!.Value - run.LNomNm!.Value, excursion.GetProperty("lengthChangeNm").GetDouble(), 1e-3);
+    }
+
+    [Fact]
+    public void GrowthWindowFrom_ShutterOpensLateClosesEarly_WindowBetween()
+    {
+        var shutter = new[] { Sample(0, 0), Sample(100, 1), Sample(300, 0), Sample(350, 1), Sample(900, 0) };
+
+        var window = RunEvaluator.GrowthWindowFrom(shutter, T0, 1000, 0.5);
+
+        Assert.Equal(100, window.StartS);
+        Assert.Equal(900, window.EndS);
+        Assert.Equal(new RunWatch.Core.Thermal.GrowthWindow(0, 1000), RunEvaluator.GrowthWindowFrom([], T0, 1000, 0.5));
+    }
+
+    public void Dispose()
+    {
+        _store.Dispose();
+        SqliteConnection.ClearAllPools();
+        Directory.Delete(_folder, recursive: true);
+    }
+
+    private static SampleRecord Sample(double s, double v) => new(T0.AddSeconds(s), SampleRow.NoSeq, v);
+
+    private static RunRecord Run() => new()
+    {
+        Chamber = "C1", Name = "R1", Status = RunStatus.Closed, StartedAt = T0, EndedAt = T0.AddSeconds(1000), SetpointC = 600, PlannedSeconds = 1000,
+    };
+
+    private async Task<ChamberRuntime> SetUpAsync(Func<double, double> temperatureAt)
+    {
+        await _store.MigrateAsync(CancellationToken.None);
+        var options = TestChambers.Chamber();
+        var registered = await _store.RegisterChambersAsync(ChamberRegistry.ToDefinitions([options]), CancellationToken.None);
+        var chamber = new ChamberRegistry([options], registered).All[0];
+        var batch = new IngestBatch();
+        for (int i = 0; i <= 1000; i++)
+        {
+            batch.AddSample(new SampleRow(chamber.ChamberId, chamber.GrowthTemperature!.ChannelId, UnixMicros.From(T0.AddSeconds(i)), i, temperatureAt(i)));
+            batch.AddSample(new SampleRow(chamber.ChamberId, chamber.Setpoint!.ChannelId, UnixMicros.From(T0.AddSeconds(i)), i, 600));
+        }
+        await _store.WriteBatchAsync(batch, CancellationToken.None);
+        return chamber;
+    }
+}

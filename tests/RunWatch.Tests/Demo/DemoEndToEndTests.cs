@@ -1,0 +1,125 @@
+using System.Diagnostics;
+using System.Net;
+using System.Net.Sockets;
+using System.Text;
+using System.Text.Json;
+using Xunit;
+
+namespace RunWatch.Tests.Demo;
+
+/// <summary>
+/// The whole job headless, as a newcomer runs it: <c>runwatch demo</c> in its own process with the embedded broker
+/// and SQLite. Invented telemetry and events go in over MQTT, invented SEM fields are dropped after each run, and
+/// every demo wafer must come out with report files and a verdict; the PDF is read back with pdftotext
+/// (poppler-utils, an independent reader).
+/// </summary>
+public sealed class DemoEndToEndTests : IDisposable
+{
+    private readonly string _folder = Path.Combine(Path.GetTempPath(), "rw-demo-" + Guid.NewGuid().ToString("N"));
+
+    public void Dispose()
+    {
+        if (Directory.Exists(_folder))
+        {
+            Directory.Delete(_folder, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void Demo_FreshFolder_EveryWaferGetsReportWithVerdict()
+    {
+        int brokerPort = FreePort();
+        int httpPort = FreePort();
+        var (exitCode, output) = Run(TimeSpan.FromMinutes(8), "demo", "--data-folder", _folder, "--exit-when-done",
+            $"--Broker:Port={brokerPort}", $"--Urls=http://127.0.0.1:{httpPort}");
+
+        Assert.True(exitCode == 0, "demo failed:\n" + output);
+        Assert.Contains("invented", output, StringComparison.Ordinal);
+        foreach (string wafer in new[] { "W-DEMO-01-A", "W-DEMO-01-B", "W-DEMO-02-A" })
+        {
+            string folder = Path.Combine(_folder, "reports", wafer);
+            string pdf = Path.Combine(folder, wafer + ".pdf");
+            Assert.True(File.Exists(pdf), $"no PDF for {wafer}:\n{output}");
+            Assert.True(File.Exists(Path.Combine(folder, wafer + ".html")));
+            Assert.True(File.Exists(Path.Combine(folder, wafer + "-wires.csv")));
+            using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, wafer + ".json")));
+            string verdict = summary.RootElement.GetProperty("verdict").GetProperty("outcome").GetString()!;
+            Assert.Contains(verdict, new[] { "Pass", "Warn", "Fail" });
+            Assert.Contains($"wafer {wafer}: verdict {verdict.ToUpperInvariant()}", output, StringComparison.Ordinal);
+
+            string text = PdfText(pdf);
+            Assert.Contains(wafer, text, StringComparison.Ordinal);
+            Assert.Contains(verdict.ToUpperInvariant(), text.ToUpperInvariant(), StringComparison.Ordinal);
+        }
+        // The first wafer proposes the process's radius model, the demo user accepts it, and the later wafer is
+        // judged against it: its bias rule is measured, not skipped.
+        Assert.Contains("accepted by 'demo-engineer'", output, StringComparison.Ordinal);
+        using var later = JsonDocument.Parse(File.ReadAllText(Path.Combine(_folder, "reports", "W-DEMO-02-A", "W-DEMO-02-A.json")));
+        JsonElement bias = later.RootElement.GetProperty("verdict").GetProperty("rules").EnumerateArray()
+            .Single(r => r.GetProperty("rule").GetString() == "prediction-bias");
+        Assert.Equal(JsonValueKind.Number, bias.GetProperty("measured").ValueKind);
+        Assert.DoesNotContain("Unhandled exception", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Demo_FolderThatIsNotADemoFolder_RefusedAndLeftAlone()
+    {
+        Directory.CreateDirectory(_folder);
+        string precious = Path.Combine(_folder, "notes.txt");
+        File.WriteAllText(precious, "not demo data");
+
+        var (exitCode, output) = Run(TimeSpan.FromMinutes(1), "demo", "--data-folder", _folder, "--exit-when-done");
+
+        Assert.Equal(2, exitCode);
+        Assert.Contains("not a RunWatch demo folder", output, StringComparison.Ordinal);
+        Assert.Equal("not demo data", File.ReadAllText(precious));
+    }
+
+    private static int FreePort()
+    {
+        using var listener = new TcpListener(IPAddress.Loopback, 0);
+        listener.Start();
+        return ((IPEndPoint)listener.LocalEndpoint).Port;
+    }
+
+    private static (int ExitCode, string Output) Run(TimeSpan timeout, params string[] args)
+    {
+        var psi = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        psi.ArgumentList.Add(Path.Combine(AppContext.BaseDirectory, "runwatch.dll"));
+        foreach (string a in args)
+        {
+            psi.ArgumentList.Add(a);
+        }
+        var output = new StringBuilder();
+        using var process = new Process { StartInfo = psi };
+        process.OutputDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
+        process.ErrorDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
+        process.Start();
+        process.BeginOutputReadLine();
+        process.BeginErrorReadLine();
+        if (!process.WaitForExit(timeout))
+        {
+            process.Kill(entireProcessTree: true);
+            process.WaitForExit();
+            lock (output)
+            {
+                return (-1, "timed out after " + timeout + "\n" + output);
+            }
+        }
+        process.WaitForExit();
+        lock (output)
+        {
+            return (process.ExitCode, output.ToString());
+        }
+    }
+
+    private static string PdfText(string pdf)
+    {
+        var psi = new ProcessStartInfo("pdftotext", ["-layout", pdf, "-"]) { RedirectStandardOutput = true, UseShellExecute = false };
+        using var process = Process.Start(psi)!;
+        string text = process.StandardOutput.ReadToEnd();
+        process.WaitForExit();
+        Assert.Equal(0, process.ExitCode);
+        return text;
+    }
+}

@@ -1,0 +1,55 @@
+using Bunit;
+using RunWatch.Web.Components.Pages;
+using RunWatch.Web.Data.InMemory;
+using RunWatch.Web.Tests.Support;
+using Xunit;
+
+namespace RunWatch.Web.Tests.Components.Pages;
+
+public sealed class WaferTests
+{
+    [Fact]
+    public void Render_UnknownWafer_SaysSo()
+    {
+        using var ctx = new DashboardTestContext();
+        Assert.NotNull(ctx.Render<Wafer>(p => p.Add(w => w.WaferId, "W-0")).Find("[data-testid=no-wafer]"));
+    }
+
+    [Fact]
+    public void Render_Wafer_ShowsVerdictReasonsStatisticsAndReportLinks()
+    {
+        using var ctx = new DashboardTestContext();
+        var page = ctx.Render<Wafer>(p => p.Add(w => w.WaferId, InventedLabScenario.Wafer));
+        Assert.Contains("REVIEW", page.Find("[data-testid=verdict]").TextContent, StringComparison.Ordinal);
+        Assert.Contains("an alarm excursion of 9.0 K", page.Markup, StringComparison.Ordinal);
+        Assert.Contains("1.42 µm⁻²", page.Find("[data-testid=wafer-stats]").TextContent, StringComparison.Ordinal);
+        Assert.Equal("api/wafers/W-2030-A/reports/csv", page.Find("[data-testid=report-csv]").GetAttribute("href"));
+    }
+
+    [Fact]
+    public void Overlay_TurnedOff_ImagesRequestPlainFields()
+    {
+        using var ctx = new DashboardTestContext();
+        var page = ctx.Render<Wafer>(p => p.Add(w => w.WaferId, InventedLabScenario.Wafer));
+        Assert.All(page.FindAll(".field img"), img => Assert.EndsWith("overlay=true", img.GetAttribute("src"), StringComparison.Ordinal));
+        page.Find("[data-testid=overlay]").Change(false);
+        Assert.All(page.FindAll(".field img"), img => Assert.EndsWith("overlay=false", img.GetAttribute("src"), StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public async Task Assign_Engineer_MovesFieldToWafer_ViewerRefused()
+    {
+        using (var viewer = new DashboardTestContext(role: "viewer"))
+        {
+            var page = viewer.Render<Wafer>(p => p.Add(w => w.WaferId, InventedLabScenario.Wafer));
+            page.Find("[data-testid=assign]").Click();
+            Assert.Contains("Refused", page.Find("[data-testid=assign-message]").TextContent, StringComparison.Ordinal);
+            Assert.Single(await viewer.Data.GetUnmatchedFieldsAsync(CancellationToken.None));
+        }
+        using var ctx = new DashboardTestContext();
+        var engineerPage = ctx.Render<Wafer>(p => p.Add(w => w.WaferId, InventedLabScenario.Wafer));
+        engineerPage.Find("[data-testid=assign]").Click();
+        Assert.Empty(await ctx.Data.GetUnmatchedFieldsAsync(CancellationToken.None));
+        Assert.Equal(3, (await ctx.Data.GetWaferAsync(InventedLabScenario.Wafer, CancellationToken.None))!.Fields.Count);
+    }
+}

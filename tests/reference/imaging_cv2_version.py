@@ -1,0 +1,4 @@
+"""Prints the OpenCV version (for the RunWatch imaging benchmark report)."""
+import cv2
+
+print(cv2.__version__)
