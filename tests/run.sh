@@ -50,12 +50,12 @@ for project in tests/*.Tests/*.csproj; do
   name=$(basename "$project" .csproj)
   echo "== test $name"
   log="$results_dir/$name.log"
-  if dotnet test "$project" -c Release --no-build -nologo --logger "console;verbosity=normal" >"$log" 2>&1; then :; else status=1; fi
-  grep -E "^\s+(Failed|Passed) |error|Error Message|Assert\." "$log" | grep -vE "^\s+Passed " | head -60 || true
+  if dotnet test "$project" -c Release --no-build -nologo --logger "console;verbosity=minimal" >"$log" 2>&1; then :; else status=1; fi
   line=$(grep -E "(Passed|Failed)!.*Total:" "$log" | tail -1 || true)
   if [ -z "$line" ]; then
-    echo "   no summary from $name (see below)"; tail -30 "$log"; status=1; continue
+    echo "   no summary from $name:"; tail -40 "$log"; status=1; continue
   fi
+  case "$line" in Failed!*) grep -vE "^\s*$" "$log" | grep -vE "(Passed|Failed)!.*Total:" | tail -80 ;; esac
   echo "   $line"
   p=$(sed -E 's/.*Passed: *([0-9]+).*/\1/' <<<"$line"); f=$(sed -E 's/.*Failed: *([0-9]+).*/\1/' <<<"$line")
   s=$(sed -E 's/.*Skipped: *([0-9]+).*/\1/' <<<"$line")

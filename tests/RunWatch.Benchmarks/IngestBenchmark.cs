@@ -83,6 +83,9 @@ internal sealed class IngestBenchmark : IBenchmark
             output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"   bare mosquitto_sub -q 1 (peer, same stream):        {bareRate,10:N0} samples/s  ({bareS:F2} s first to last message)"));
             output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"   ratio daemon / bare subscriber: {daemonRate / bareRate:F2}  (goal >= 0.8)"));
             await daemon.WaitConnectedAsync(TimeSpan.FromSeconds(30));
+            var m = await daemon.MetricsAsync();
+            output.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"   daemon time split: commit {Sum(m, "runwatch_ingest_batch_commit_seconds_sum"):F2} s, acks {Sum(m, "runwatch_ingest_batch_ack_seconds_sum"):F2} s, {Sum(m, "runwatch_ingest_batch_messages_count"):F0} batches of {Sum(m, "runwatch_ingest_batch_messages_sum") / Math.Max(1, Sum(m, "runwatch_ingest_batch_messages_count")):F0} messages on average"));
 
             // 2. Latency at a steady 2,000 samples/s: commit time minus the publisher's own sample time, from the daemon's histogram.
             var before = LagBuckets(await daemon.MetricsAsync());
@@ -199,6 +202,18 @@ internal sealed class IngestBenchmark : IBenchmark
         {
             return 0;
         }
+    }
+
+    private static double Sum(string metrics, string series)
+    {
+        foreach (string line in metrics.Split('\n'))
+        {
+            if (line.StartsWith(series + " ", StringComparison.Ordinal))
+            {
+                return double.Parse(line[(series.Length + 1)..], CultureInfo.InvariantCulture);
+            }
+        }
+        return double.NaN;
     }
 
     private static List<(double Le, double Count)> LagBuckets(string metrics)

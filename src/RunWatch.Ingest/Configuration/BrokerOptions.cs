@@ -61,9 +61,9 @@ public sealed class BrokerOptions
     /// </summary>
     public TimeSpan SessionExpiry { get; set; } = TimeSpan.FromDays(7);
 
-    /// <summary>Receive Maximum announced to the broker (MQTT 5): unacknowledged messages in flight. Must be ≥ Ingest:MaxBatchMessages. <value>Default 2000.</value></summary>
+    /// <summary>Receive Maximum announced to the broker (MQTT 5): unacknowledged messages in flight. Must be ≥ Ingest:MaxBatchMessages, with room for the next batch to arrive while one commits. <value>Default 4000.</value></summary>
     [Range(1, 65535)]
-    public int ReceiveMaximum { get; set; } = 2000;
+    public int ReceiveMaximum { get; set; } = 4000;
 
     /// <summary>Timeout of one connection attempt. <value>Default 10 s.</value></summary>
     public TimeSpan ConnectTimeout { get; set; } = TimeSpan.FromSeconds(10);

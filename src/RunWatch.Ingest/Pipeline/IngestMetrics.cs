@@ -26,6 +26,8 @@ internal sealed class IngestMetrics
             new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(0.0005, 2, 14) });
         SampleLagSeconds = factory.CreateHistogram("runwatch_ingest_commit_lag_seconds", "Commit time minus the sample's own time (publisher clock), per stored sample.",
             new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(0.001, 1.25, 40) });
+        AckSeconds = factory.CreateHistogram("runwatch_ingest_batch_ack_seconds", "Time to send the acknowledgements of one committed batch.",
+            new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(0.0005, 2, 14) });
         BatchMessages = factory.CreateHistogram("runwatch_ingest_batch_messages", "Messages per committed batch.",
             new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(1, 2, 12) });
         QueueDepth = factory.CreateGauge("runwatch_ingest_queue_depth", "Messages waiting for the committer.");
@@ -47,6 +49,8 @@ internal sealed class IngestMetrics
     public Histogram CommitSeconds { get; }
 
     public Histogram SampleLagSeconds { get; }
+
+    public Histogram AckSeconds { get; }
 
     public Histogram BatchMessages { get; }
 

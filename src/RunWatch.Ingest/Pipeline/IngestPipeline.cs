@@ -219,6 +219,7 @@ internal sealed class IngestPipeline
             }
         }
 
+        long ackStarted = Stopwatch.GetTimestamp();
         foreach (var message in _messages)
         {
             if (message.AckHandle is not null && !await _acknowledger.AcknowledgeAsync(message, CancellationToken.None).ConfigureAwait(false))
@@ -226,6 +227,7 @@ internal sealed class IngestPipeline
                 _metrics.AckFailures.Inc();
             }
         }
+        _metrics.AckSeconds.Observe(Stopwatch.GetElapsedTime(ackStarted).TotalSeconds);
 
         if (result.SampleDuplicates > 0)
         {

@@ -17,6 +17,9 @@ internal static class RunWatchComposition
         builder.AddRunWatchDaemon(args);
         builder.Services.AddRunWatchWaferPipeline(builder.Configuration);
         builder.AddRunWatchDashboard();
+        // Wafer screens read the pipeline's tables; registered before the dashboard's adapter takes them up.
+        builder.Services.TryAddSingleton<RunWatch.Web.Data.Store.StoreWaferData>();
+        builder.Services.TryAddSingleton<RunWatch.Web.Data.IFieldAssigner, PipelineFieldAssigner>();
         builder.Services.AddRunWatchDashboardStoreData();
         builder.Services.TryAddSingleton<DashboardLiveBridge>();
         builder.Services.AddSingleton<IIngestCommitListener>(sp => sp.GetRequiredService<DashboardLiveBridge>());

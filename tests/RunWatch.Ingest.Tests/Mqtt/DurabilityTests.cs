@@ -45,6 +45,12 @@ public sealed class DurabilityTests(Xunit.Abstractions.ITestOutputHelper output)
             output.WriteLine(string.Join('\n', metrics.Split('\n').Where(l => l.StartsWith("runwatch_ingest_rejects_total{reason=\"duplicate\"}", StringComparison.Ordinal) || l.StartsWith("runwatch_ingest_samples_total", StringComparison.Ordinal))));
             Assert.Equal(Total, stored);
             Assert.Equal(Total, InProcessDaemon.SqliteScalar(database, "SELECT COUNT(DISTINCT seq) FROM samples"));
+            foreach (string series in new[] { "runwatch_ingest_samples_total", "runwatch_ingest_rejects_total{reason=\"malformed_json\"}", "runwatch_ingest_batch_commit_seconds_count",
+                "runwatch_ingest_queue_depth", "runwatch_alerts_active", "runwatch_broker_connected 1" })
+            {
+                Assert.Contains(series, metrics, StringComparison.Ordinal);
+            }
+            Assert.DoesNotContain("process_cpu_seconds_total", metrics, StringComparison.Ordinal);
             Assert.Equal(0, InProcessDaemon.SqliteScalar(database, "SELECT MIN(seq) FROM samples"));
             Assert.Equal(Total - 1, InProcessDaemon.SqliteScalar(database, "SELECT MAX(seq) FROM samples"));
         }

@@ -15,6 +15,9 @@ public sealed class MosquittoBroker : IAsyncDisposable
     private Process? _process;
     private readonly StringBuilder _log = new();
 
+    private string? _customConfig;
+
+
     private MosquittoBroker(bool persistence)
     {
         _persistence = persistence;
@@ -51,6 +54,20 @@ public sealed class MosquittoBroker : IAsyncDisposable
         }
         var broker = new MosquittoBroker(persistence);
         broker.WriteConfig(maxInflightMessages);
+        await broker.StartProcessAsync().ConfigureAwait(false);
+        return broker;
+    }
+
+    /// <summary>
+    /// Starts a broker with a config of the caller's: <paramref name="config"/> gets the port and the broker's temp
+    /// folder and returns the whole file (for TLS and authentication tests).
+    /// </summary>
+    public static async Task<MosquittoBroker> StartWithConfigAsync(Func<int, string, string> config)
+    {
+        ArgumentNullException.ThrowIfNull(config);
+        var broker = new MosquittoBroker(persistence: false);
+        broker._customConfig = config(broker.Port, broker.Folder);
+        File.WriteAllText(broker.ConfigPath, broker._customConfig);
         await broker.StartProcessAsync().ConfigureAwait(false);
         return broker;
     }

@@ -68,6 +68,14 @@ public sealed class DashboardInDaemonTests : IAsyncLifetime
     [Fact]
     public async Task MqttPublish_ToEmbeddedBroker_ReachesDashboardReadModelAndLoginPage()
     {
+        // The daemon subscribes once connected; a message published before that would reach no subscriber.
+        var health = _app.Services.GetRequiredService<RunWatch.Ingest.Health.IngestHealth>();
+        var connectDeadline = DateTimeOffset.UtcNow.AddSeconds(30);
+        while (health.Snapshot().BrokerState != RunWatch.Ingest.Health.BrokerConnectionState.Connected && DateTimeOffset.UtcNow < connectDeadline)
+        {
+            await Task.Delay(50);
+        }
+        Assert.Equal(RunWatch.Ingest.Health.BrokerConnectionState.Connected, health.Snapshot().BrokerState);
         var at = DateTimeOffset.UtcNow;
         using (var client = new MqttClientFactory().CreateMqttClient())
         {
@@ -99,8 +107,8 @@ public sealed class DashboardInDaemonTests : IAsyncLifetime
         Assert.Equal(HttpStatusCode.OK, login.StatusCode);
         var api = await http.GetAsync(_baseUrl + "/api/chambers");
         Assert.Equal(HttpStatusCode.Unauthorized, api.StatusCode);
-        var health = await http.GetAsync(_baseUrl + "/healthz");
-        Assert.NotEqual(HttpStatusCode.NotFound, health.StatusCode);
+        var healthz = await http.GetAsync(_baseUrl + "/healthz");
+        Assert.NotEqual(HttpStatusCode.NotFound, healthz.StatusCode);
     }
 
     private static int FreePort()

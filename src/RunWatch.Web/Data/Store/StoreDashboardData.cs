@@ -12,7 +12,8 @@ namespace RunWatch.Web.Data.Store;
 /// commands (<see cref="IAlertCommands"/>): chambers, telemetry, runs, alerts and audit. Wafers, fields, reports,
 /// specs and process models are not in the store's interface yet; those queries report nothing stored.
 /// </summary>
-public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands alerts, TimeProvider time, IOptions<DashboardOptions> options)
+public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands alerts, TimeProvider time, IOptions<DashboardOptions> options,
+    StoreWaferData? wafers = null, IFieldAssigner? assigner = null)
     : IDashboardQueries, IDashboardCommands
 {
     private const int MaxSamples = 2_000_000;
@@ -83,13 +84,17 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         return new RunDetail(ToSummary(run), thermal, Excursions(run.ExcursionsJson, run.LEffNm), null, channel);
     }
 
-    public Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken) => Task.FromResult<WaferDetail?>(null);
+    public Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken) =>
+        wafers?.GetWaferAsync(waferId, cancellationToken) ?? Task.FromResult<WaferDetail?>(null);
 
-    public Task<ReportFile?> GetFieldImageAsync(string fieldId, bool overlay, CancellationToken cancellationToken) => Task.FromResult<ReportFile?>(null);
+    public Task<ReportFile?> GetFieldImageAsync(string fieldId, bool overlay, CancellationToken cancellationToken) =>
+        wafers?.GetFieldImageAsync(fieldId, overlay, cancellationToken) ?? Task.FromResult<ReportFile?>(null);
 
-    public Task<IReadOnlyList<UnmatchedField>> GetUnmatchedFieldsAsync(CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<UnmatchedField>>([]);
+    public Task<IReadOnlyList<UnmatchedField>> GetUnmatchedFieldsAsync(CancellationToken cancellationToken) =>
+        wafers?.GetUnmatchedFieldsAsync(cancellationToken) ?? Task.FromResult<IReadOnlyList<UnmatchedField>>([]);
 
-    public Task<ReportFile?> GetReportAsync(string waferId, string format, CancellationToken cancellationToken) => Task.FromResult<ReportFile?>(null);
+    public Task<ReportFile?> GetReportAsync(string waferId, string format, CancellationToken cancellationToken) =>
+        wafers?.GetReportAsync(waferId, format, cancellationToken) ?? Task.FromResult<ReportFile?>(null);
 
     public async Task<IReadOnlyList<AlertView>> GetAlertsAsync(CancellationToken cancellationToken)
     {
@@ -105,9 +110,11 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             .ToList();
     }
 
-    public Task<IReadOnlyList<string>> GetProcessesAsync(CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<string>>([]);
+    public Task<IReadOnlyList<string>> GetProcessesAsync(CancellationToken cancellationToken) =>
+        wafers?.GetProcessesAsync(cancellationToken) ?? Task.FromResult<IReadOnlyList<string>>([]);
 
-    public Task<ProcessModelView?> GetProcessModelAsync(string process, CancellationToken cancellationToken) => Task.FromResult<ProcessModelView?>(null);
+    public Task<ProcessModelView?> GetProcessModelAsync(string process, CancellationToken cancellationToken) =>
+        wafers?.GetProcessModelAsync(process, cancellationToken) ?? Task.FromResult<ProcessModelView?>(null);
 
     public Task<IReadOnlyList<SpecEntry>> GetSpecsAsync(CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<SpecEntry>>([]);
 
@@ -134,14 +141,27 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         await RecordCommentAsync(user, "alert shelved", alertId, comment, cancellationToken).ConfigureAwait(false);
     }
 
-    public Task AssignFieldAsync(string fieldId, string waferId, string user, CancellationToken cancellationToken) =>
-        throw new InvalidOperationException("Field assignment is not available: the store holds no SEM fields yet.");
+    public async Task AssignFieldAsync(string fieldId, string waferId, string user, CancellationToken cancellationToken)
+    {
+        if (assigner is null)
+        {
+            throw new InvalidOperationException("Field assignment is not available in this host (no wafer pipeline).");
+        }
+        await assigner.AssignAsync(ParseId(fieldId), waferId, user, cancellationToken).ConfigureAwait(false);
+    }
 
     public Task RefitModelAsync(string process, string user, CancellationToken cancellationToken) =>
         throw new InvalidOperationException("Refitting is not available: the store holds no process models yet.");
 
-    public Task AcceptModelAsync(string process, string user, CancellationToken cancellationToken) =>
-        throw new InvalidOperationException("Accepting a model is not available: the store holds no process models yet.");
+    public async Task AcceptModelAsync(string process, string user, CancellationToken cancellationToken)
+    {
+        if (wafers is null)
+        {
+            throw new InvalidOperationException("Accepting a model is not available: this host has no wafer store.");
+        }
+        await wafers.AcceptModelAsync(process, user, cancellationToken).ConfigureAwait(false);
+        await store.AppendAuditAsync(new StoredAudit(time.GetUtcNow(), user, "accept-model", process, null), cancellationToken).ConfigureAwait(false);
+    }
 
     public Task UpdateSpecAsync(SpecEntry spec, string user, CancellationToken cancellationToken) =>
         throw new InvalidOperationException("Specs are not stored yet.");
