@@ -18,7 +18,7 @@ done
 # Debian packages the tests use: an independent MQTT broker and clients, PDF text extraction, an independent
 # TIFF writer, the Python reference libraries (for /usr/bin/python3), a headless browser, fonts.
 debian_packages=(mosquitto mosquitto-clients poppler-utils imagemagick python3-scipy python3-skimage
-  python3-shapely python3-opencv python3-pil chromium chromium-driver fonts-dejavu-core)
+  python3-shapely python3-opencv python3-pil chromium chromium-driver fonts-dejavu-core openssl)
 
 missing=()
 for p in "${debian_packages[@]}"; do
