@@ -20,6 +20,27 @@ public static class FieldUploadEndpoints
         return endpoints.MapPost("/api/fields/upload", UploadAsync).DisableAntiforgery();
     }
 
+    /// <summary><c>GET /api/pipeline</c>: the analysis queue's progress (waiting, running, done, failed).</summary>
+    public static RouteHandlerBuilder MapRunWatchPipelineProgress(this IEndpointRouteBuilder endpoints) =>
+        endpoints.MapGet("/api/pipeline", (FieldAnalysisQueue queue) => Results.Json(new
+        {
+            queue.Capacity,
+            queue.Waiting,
+            queue.Running,
+            queue.Enqueued,
+            queue.Done,
+            queue.Failed,
+        }));
+
+    /// <summary><c>POST /api/wafers/{wafer}/reanalyse</c>: analyse every field of a wafer again (new settings or model), on request only.</summary>
+    public static RouteHandlerBuilder MapRunWatchReanalyse(this IEndpointRouteBuilder endpoints) =>
+        endpoints.MapPost("/api/wafers/{wafer}/reanalyse", async (string wafer, HttpContext context, FieldIntake intake, CancellationToken cancellationToken) =>
+        {
+            string actor = context.User.Identity?.Name ?? "unknown";
+            int queued = await intake.ReanalyseWaferAsync(wafer, actor, cancellationToken).ConfigureAwait(false);
+            return queued == 0 ? Results.NotFound(new { wafer, queued }) : Results.Accepted(value: new { wafer, queued });
+        });
+
     internal static async Task<IResult> UploadAsync(HttpRequest request, string? name, FieldIntake intake, FieldIntakeService watcher,
         IOptions<IntakeOptions> options, CancellationToken cancellationToken)
     {

@@ -32,6 +32,8 @@ internal static class RunWatchComposition
         app.MapRunWatchDaemon();
         app.MapRunWatchDashboard();
         app.MapRunWatchFieldUpload().RequireAuthorization(RunWatch.Web.Security.DashboardRoles.CanActPolicy);
+        app.MapRunWatchReanalyse().RequireAuthorization(RunWatch.Web.Security.DashboardRoles.CanActPolicy);
+        app.MapRunWatchPipelineProgress().RequireAuthorization();
         return app;
     }
 }

@@ -117,6 +117,35 @@ public sealed class WaferPipelineTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task ReanalyseOnRequest_QueuesAnalysedFieldsAgainAndRecordsWho()
+    {
+        string drop = Path.Combine(_root, "drop4");
+        string path = DemoWaferFields.Write(drop, "W-T1-A", 300, 1e9, 1, seed: 8)[0];
+        FieldRecord field = await DropAsync(path);
+        Assert.True(_queue.Reader.TryRead(out long id));
+        Assert.True((await _analysis.AnalyseAsync(id, default)).Ok);
+        Assert.Equal(0, _queue.Waiting);
+
+        int queued = await _intake.ReanalyseWaferAsync("W-T1-A", "engineer1", default);
+
+        Assert.Equal(1, queued);
+        Assert.Equal(1, _queue.Waiting);
+        Assert.Equal(FieldStatus.Queued, (await _store.GetFieldAsync(field.Id, default))!.Status);
+        Assert.Equal(1, CountAudit("reanalyse-wafer", "engineer1"));
+    }
+
+    private long CountAudit(string action, string actor)
+    {
+        using var connection = new SqliteConnection("Data Source=" + Path.Combine(_root, "runwatch.db") + ";Pooling=False");
+        connection.Open();
+        using var command = connection.CreateCommand();
+        command.CommandText = "SELECT COUNT(*) FROM audit_entries WHERE action = $a AND actor = $u";
+        command.Parameters.AddWithValue("$a", action);
+        command.Parameters.AddWithValue("$u", actor);
+        return (long)command.ExecuteScalar()!;
+    }
+
+    [Fact]
     public async Task ImageForUnknownWafer_WaitsUnassignedThenAssignedByAPerson()
     {
         string drop = Path.Combine(_root, "drop2");
