@@ -1,6 +1,7 @@
+using RunWatch.Reports.Tests.Support;
+using RunWatch.Testing.Documents;
 using RunWatch.Core.Qc;
 using RunWatch.Reports.Html;
-using RunWatch.Reports.Tests.Support;
 using Xunit;
 
 namespace RunWatch.Reports.Tests;

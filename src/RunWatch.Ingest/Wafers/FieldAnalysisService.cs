@@ -79,7 +79,7 @@ public sealed class FieldAnalysisService(
         {
             var (analysis, raster) = await Task.Run(() => FieldAnalyzer.AnalyzeWithRaster(field.FilePath, settings), cancellationToken).ConfigureAwait(false);
             FieldResult result = FieldResultMapper.From(analysis);
-            await OverlayWriter.WriteAsync(analysis, raster, WaferReportService.OverlayPath(reports.FolderFor(field.Wafer), field.Id), cancellationToken).ConfigureAwait(false);
+            await OverlayWriter.WriteAsync(analysis, raster, WaferFiles.OverlayPath(reports.FolderFor(field.Wafer), field.Id), cancellationToken).ConfigureAwait(false);
             await wafers.SaveAnalysisAsync(new AnalysisRecord
             {
                 FieldId = field.Id,

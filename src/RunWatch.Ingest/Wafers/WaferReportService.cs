@@ -74,7 +74,7 @@ public sealed class WaferReportService
             FieldResult result = JsonSerializer.Deserialize<FieldResult>(analysis.ResultsJson, PipelineJson.Options)
                 ?? throw new InvalidDataException($"analysis {analysis.Id} has empty results");
             fields.Add(result);
-            string overlay = OverlayPath(folder, field.Id);
+            string overlay = WaferFiles.OverlayPath(folder, field.Id);
             if (File.Exists(overlay))
             {
                 thumbnails.Add(new FieldThumbnail(result.FieldName, await File.ReadAllBytesAsync(overlay, cancellationToken).ConfigureAwait(false),
@@ -176,9 +176,6 @@ public sealed class WaferReportService
         return new WaferReportOutcome(wafer, evaluation.Verdict, folder, files);
     }
 
-    /// <summary>Where the overlay of field <paramref name="fieldId"/> is kept.</summary>
-    public static string OverlayPath(string waferFolder, long fieldId) =>
-        Path.Combine(waferFolder, "fields", "field-" + fieldId.ToString(CultureInfo.InvariantCulture) + "-overlay.png");
 
     /// <summary>Folder name for a wafer id: the report writer's safe file name, never a path.</summary>
     public static string SafeFolderName(string wafer) => RunWatch.Reports.WaferReportWriter.SafeFileName(wafer);

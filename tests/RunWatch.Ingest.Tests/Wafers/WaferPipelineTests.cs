@@ -8,6 +8,7 @@ using RunWatch.Ingest.Wafers;
 using RunWatch.Simulation.Demo;
 using RunWatch.Storage;
 using RunWatch.Storage.Sqlite;
+using RunWatch.Testing.Documents;
 using Xunit;
 
 namespace RunWatch.Ingest.Tests.Wafers;
@@ -104,7 +105,7 @@ public sealed class WaferPipelineTests : IAsyncLifetime
             {
                 Assert.True(File.Exists(outcome.Files[format]), format);
             }
-            string pdfText = PdfText(outcome.Files["pdf"]);
+            string pdfText = PopplerText.Text(outcome.Files["pdf"]);
             Assert.Contains(wafer, pdfText, StringComparison.Ordinal);
             Assert.Contains(outcome.Verdict.Outcome.ToString().ToUpperInvariant(), pdfText.ToUpperInvariant(), StringComparison.Ordinal);
             Assert.Equal(4, (await _store.GetReportsAsync(wafer, default)).Count);
@@ -178,15 +179,5 @@ public sealed class WaferPipelineTests : IAsyncLifetime
         FieldRecord failed = (await _store.GetFieldAsync(field.Id, default))!;
         Assert.Equal(FieldStatus.Failed, failed.Status);
         Assert.Contains("W-T1-A_broken.png", failed.Problem, StringComparison.Ordinal);
-    }
-
-    private static string PdfText(string pdf)
-    {
-        var psi = new ProcessStartInfo("pdftotext", ["-layout", pdf, "-"]) { RedirectStandardOutput = true, UseShellExecute = false };
-        using var process = Process.Start(psi)!;
-        string text = process.StandardOutput.ReadToEnd();
-        process.WaitForExit();
-        Assert.Equal(0, process.ExitCode);
-        return text;
     }
 }

@@ -1,5 +1,4 @@
 using System.Net;
-using System.Net.Sockets;
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.Extensions.Configuration;
@@ -8,6 +7,7 @@ using Microsoft.Extensions.Hosting;
 using MQTTnet;
 using MQTTnet.Protocol;
 using RunWatch.Hosting;
+using RunWatch.Testing.Mqtt;
 using RunWatch.Web.Data;
 using RunWatch.Web.Hosting;
 using RunWatch.Web.Security;
@@ -25,8 +25,8 @@ public sealed class DashboardInDaemonTests : IAsyncLifetime
 
     public async Task InitializeAsync()
     {
-        _brokerPort = FreePort();
-        int webPort = FreePort();
+        _brokerPort = FreePort.Next();
+        int webPort = FreePort.Next();
         _baseUrl = $"http://127.0.0.1:{webPort}";
         var builder = WebApplication.CreateBuilder(new WebApplicationOptions { EnvironmentName = Environments.Development, ApplicationName = "runwatch" });
         builder.Configuration.AddInMemoryCollection(new Dictionary<string, string?>
@@ -109,12 +109,5 @@ public sealed class DashboardInDaemonTests : IAsyncLifetime
         Assert.Equal(HttpStatusCode.Unauthorized, api.StatusCode);
         var healthz = await http.GetAsync(_baseUrl + "/healthz");
         Assert.NotEqual(HttpStatusCode.NotFound, healthz.StatusCode);
-    }
-
-    private static int FreePort()
-    {
-        using var listener = new TcpListener(IPAddress.Loopback, 0);
-        listener.Start();
-        return ((IPEndPoint)listener.LocalEndpoint).Port;
     }
 }

@@ -1,8 +1,8 @@
 using System.Diagnostics;
-using System.Net;
-using System.Net.Sockets;
 using System.Text;
 using System.Text.Json;
+using RunWatch.Testing.Documents;
+using RunWatch.Testing.Mqtt;
 using Xunit;
 
 namespace RunWatch.Tests.Demo;
@@ -28,8 +28,8 @@ public sealed class DemoEndToEndTests : IDisposable
     [Fact]
     public void Demo_FreshFolder_EveryWaferGetsReportWithVerdict()
     {
-        int brokerPort = FreePort();
-        int httpPort = FreePort();
+        int brokerPort = FreePort.Next();
+        int httpPort = FreePort.Next();
         var (exitCode, output) = Run(TimeSpan.FromMinutes(8), "demo", "--data-folder", _folder, "--exit-when-done",
             $"--Broker:Port={brokerPort}", $"--Urls=http://127.0.0.1:{httpPort}");
 
@@ -47,7 +47,7 @@ public sealed class DemoEndToEndTests : IDisposable
             Assert.Contains(verdict, new[] { "Pass", "Warn", "Fail" });
             Assert.Contains($"wafer {wafer}: verdict {verdict.ToUpperInvariant()}", output, StringComparison.Ordinal);
 
-            string text = PdfText(pdf);
+            string text = PopplerText.Text(pdf);
             Assert.Contains(wafer, text, StringComparison.Ordinal);
             Assert.Contains(verdict.ToUpperInvariant(), text.ToUpperInvariant(), StringComparison.Ordinal);
         }
@@ -75,12 +75,6 @@ public sealed class DemoEndToEndTests : IDisposable
         Assert.Equal("not demo data", File.ReadAllText(precious));
     }
 
-    private static int FreePort()
-    {
-        using var listener = new TcpListener(IPAddress.Loopback, 0);
-        listener.Start();
-        return ((IPEndPoint)listener.LocalEndpoint).Port;
-    }
 
     private static (int ExitCode, string Output) Run(TimeSpan timeout, params string[] args)
     {
@@ -111,15 +105,5 @@ public sealed class DemoEndToEndTests : IDisposable
         {
             return (process.ExitCode, output.ToString());
         }
-    }
-
-    private static string PdfText(string pdf)
-    {
-        var psi = new ProcessStartInfo("pdftotext", ["-layout", pdf, "-"]) { RedirectStandardOutput = true, UseShellExecute = false };
-        using var process = Process.Start(psi)!;
-        string text = process.StandardOutput.ReadToEnd();
-        process.WaitForExit();
-        Assert.Equal(0, process.ExitCode);
-        return text;
     }
 }

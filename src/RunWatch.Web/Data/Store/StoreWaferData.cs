@@ -78,7 +78,7 @@ public sealed class StoreWaferData(IWaferStore wafers)
             var reports = await wafers.GetReportsAsync(field.Wafer, cancellationToken).ConfigureAwait(false);
             if (reports.FirstOrDefault() is { } any)
             {
-                path = Path.Combine(Path.GetDirectoryName(any.FilePath)!, "fields", $"field-{id.ToString(CultureInfo.InvariantCulture)}-overlay.png");
+                path = WaferFiles.OverlayPath(Path.GetDirectoryName(any.FilePath)!, id);
             }
         }
         else if (Path.GetExtension(field.FilePath).ToLowerInvariant() is ".png" or ".jpg" or ".jpeg")

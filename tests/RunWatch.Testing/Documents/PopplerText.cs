@@ -1,9 +1,9 @@
 using System.Diagnostics;
 
-namespace RunWatch.Reports.Tests.Support;
+namespace RunWatch.Testing.Documents;
 
 /// <summary>Runs Debian poppler-utils (pdftotext, pdfinfo, pdftoppm) on a file, a real PDF reader outside the project.</summary>
-internal static class PopplerText
+public static class PopplerText
 {
     public static string Run(string tool, params string[] args)
     {
