@@ -88,21 +88,7 @@ public static partial class IngestServiceCollectionExtensions
         services.AddSingleton<IAlertSink, LogAlertSink>();
         services.AddSingleton<IAlertSink, ListenerAlertSink>();
         services.AddSingleton<IAlertSink, MqttAlertSink>();
-        services.AddSingleton<IAlertSink, WebhookAlertSink>();
-        services.AddHttpClient(WebhookAlertSink.ClientName)
-            .AddResilienceHandler("alert-webhook", (pipeline, context) =>
-            {
-                var o = context.ServiceProvider.GetRequiredService<IOptions<AlertsOptions>>().Value;
-                pipeline.AddRetry(new HttpRetryStrategyOptions
-                {
-                    MaxRetryAttempts = Math.Max(1, o.WebhookRetries),
-                    BackoffType = DelayBackoffType.Exponential,
-                    UseJitter = true,
-                    Delay = o.WebhookRetryDelay,
-                    ShouldHandle = args => ValueTask.FromResult(o.WebhookRetries > 0 && HttpClientResiliencePredicates.IsTransient(args.Outcome)),
-                });
-                pipeline.AddTimeout(o.WebhookAttemptTimeout);
-            });
+        services.AddWebhookAlertSink();
 
         services.AddHealthChecks()
             .AddCheck<BrokerHealthCheck>("broker")
@@ -119,6 +105,30 @@ public static partial class IngestServiceCollectionExtensions
         services.AddHostedService<RunTrackingService>();
         services.AddHostedService(sp => sp.GetRequiredService<AlertDispatchService>());
         services.AddHostedService<RetentionService>();
+        return services;
+    }
+
+    /// <summary>
+    /// The webhook sink and its named HTTP client: exponential backoff with jitter on transient failures (5xx, 408,
+    /// timeouts, connection errors), a timeout per attempt, no retry of a refusal such as 400 or 401.
+    /// </summary>
+    internal static IServiceCollection AddWebhookAlertSink(this IServiceCollection services)
+    {
+        services.AddSingleton<IAlertSink, WebhookAlertSink>();
+        services.AddHttpClient(WebhookAlertSink.ClientName)
+            .AddResilienceHandler("alert-webhook", (pipeline, context) =>
+            {
+                var o = context.ServiceProvider.GetRequiredService<IOptions<AlertsOptions>>().Value;
+                pipeline.AddRetry(new HttpRetryStrategyOptions
+                {
+                    MaxRetryAttempts = Math.Max(1, o.WebhookRetries),
+                    BackoffType = DelayBackoffType.Exponential,
+                    UseJitter = true,
+                    Delay = o.WebhookRetryDelay,
+                    ShouldHandle = args => ValueTask.FromResult(o.WebhookRetries > 0 && HttpClientResiliencePredicates.IsTransient(args.Outcome)),
+                });
+                pipeline.AddTimeout(o.WebhookAttemptTimeout);
+            });
         return services;
     }
 }

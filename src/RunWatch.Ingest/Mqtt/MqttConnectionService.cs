@@ -54,10 +54,10 @@ internal sealed class MqttConnectionService : BackgroundService, IMessageAcknowl
 
     public string StatusTopic => MqttClientOptionsFactory.StatusTopic(_ingest, _broker);
 
-    public async ValueTask<bool> AcknowledgeAsync(InboundMessage message, CancellationToken cancellationToken)
+    public async ValueTask<bool> AcknowledgeAsync(AcknowledgementTicket ticket, CancellationToken cancellationToken)
     {
         // An ack on a connection that is gone throws inside MQTTnet (#1792); the broker redelivers such messages anyway.
-        if (message.Generation != Interlocked.Read(ref _generation) || !_client.IsConnected || message.AckHandle is not MqttApplicationMessageReceivedEventArgs args)
+        if (ticket.Generation != Interlocked.Read(ref _generation) || !_client.IsConnected || ticket.Handle is not MqttApplicationMessageReceivedEventArgs args)
         {
             return false;
         }

@@ -20,7 +20,7 @@ internal sealed class IngestPipeline
     private readonly InboundQueue _queue;
     private readonly IRunWatchStore _store;
     private readonly ChamberRegistryHolder _registry;
-    private readonly IMessageAcknowledger _acknowledger;
+    private readonly AcknowledgementStage _acknowledgements;
     private readonly IReadOnlyList<ICommittedBatchObserver> _observers;
     private readonly IReadOnlyList<IDaemonConditions> _conditions;
     private readonly IngestMetrics _metrics;
@@ -53,7 +53,7 @@ internal sealed class IngestPipeline
         _queue = queue;
         _store = store;
         _registry = registry;
-        _acknowledger = acknowledger;
+        _acknowledgements = new AcknowledgementStage(acknowledger, metrics);
         _observers = [.. observers];
         _conditions = [.. conditions];
         _metrics = metrics;
@@ -69,6 +69,21 @@ internal sealed class IngestPipeline
 
     /// <summary>Runs until cancelled, then commits what is already queued and returns.</summary>
     public async Task RunAsync(CancellationToken stoppingToken)
+    {
+        var acknowledging = _acknowledgements.RunAsync();
+        try
+        {
+            await CommitLoopAsync(stoppingToken).ConfigureAwait(false);
+        }
+        finally
+        {
+            // Everything committed is acknowledged before the connection is allowed to close.
+            _acknowledgements.Complete();
+            await acknowledging.ConfigureAwait(false);
+        }
+    }
+
+    private async Task CommitLoopAsync(CancellationToken stoppingToken)
     {
         var reader = _queue.Reader;
         while (!stoppingToken.IsCancellationRequested)
@@ -219,15 +234,8 @@ internal sealed class IngestPipeline
             }
         }
 
-        long ackStarted = Stopwatch.GetTimestamp();
-        foreach (var message in _messages)
-        {
-            if (message.AckHandle is not null && !await _acknowledger.AcknowledgeAsync(message, CancellationToken.None).ConfigureAwait(false))
-            {
-                _metrics.AckFailures.Inc();
-            }
-        }
-        _metrics.AckSeconds.Observe(Stopwatch.GetElapsedTime(ackStarted).TotalSeconds);
+        // Committed: from here on the PUBACKs may go out, on the acknowledgement stage's own loop.
+        await _acknowledgements.SubmitAsync(_messages).ConfigureAwait(false);
 
         if (result.SampleDuplicates > 0)
         {

@@ -1,3 +1,4 @@
+using System.Globalization;
 using Microsoft.Data.Sqlite;
 
 namespace RunWatch.Storage.Sqlite;
@@ -101,25 +102,79 @@ public sealed partial class SqliteRunWatchStore
         }, cancellationToken);
     }
 
+    /// <summary>Rows per multi-row INSERT: 5 parameters each, far below SQLite's parameter limit.</summary>
+    private const int SampleChunk = 64;
+
     private int InsertSamples(SqliteConnection connection, SqliteTransaction transaction, IngestBatch batch)
     {
         if (batch.SampleCount == 0)
         {
             return 0;
         }
-        // One prepared statement reused for every row of every batch on the writer connection.
-        var command = _insertSample;
-        if (command is null)
+        // Fast path: multi-row INSERTs inside a savepoint. When every row is new (the normal case) the change count
+        // equals the row count and every row is marked inserted. Otherwise (a redelivery, a duplicate within the
+        // batch) the savepoint is rolled back and the rows go one by one, so each row learns whether it was new.
+        const string Savepoint = "samples_batch";
+        transaction.Save(Savepoint);
+        if (InsertSampleChunks(connection, transaction, batch) == batch.SampleCount)
         {
-            command = connection.CreateCommand();
-            command.CommandText = "INSERT OR IGNORE INTO samples (chamber_id, channel_id, t_us, seq, value) VALUES ($c, $ch, $t, $s, $v)";
-            command.Parameters.Add("$c", SqliteType.Integer);
-            command.Parameters.Add("$ch", SqliteType.Integer);
-            command.Parameters.Add("$t", SqliteType.Integer);
-            command.Parameters.Add("$s", SqliteType.Integer);
-            command.Parameters.Add("$v", SqliteType.Real);
-            _insertSample = command;
+            batch.InsertedForWrite.Fill(true);
+            transaction.Release(Savepoint);
+            return batch.SampleCount;
         }
+        transaction.Rollback(Savepoint);
+        transaction.Release(Savepoint);
+        return InsertSamplesOneByOne(connection, transaction, batch);
+    }
+
+    /// <summary>Inserts the batch in chunks of <see cref="SampleChunk"/> rows (the tail one row at a time); returns the rows changed.</summary>
+    private int InsertSampleChunks(SqliteConnection connection, SqliteTransaction transaction, IngestBatch batch)
+    {
+        var samples = batch.Samples;
+        int whole = samples.Length / SampleChunk * SampleChunk;
+        int changed = 0;
+        if (whole > 0)
+        {
+            var command = _insertSampleChunk ??= PrepareSampleInsert(connection, SampleChunk);
+            command.Transaction = transaction;
+            var parameters = command.Parameters;
+            for (int start = 0; start < whole; start += SampleChunk)
+            {
+                for (int r = 0; r < SampleChunk; r++)
+                {
+                    ref readonly var sample = ref samples[start + r];
+                    int p = r * 5;
+                    parameters[p].Value = sample.ChamberId;
+                    parameters[p + 1].Value = sample.ChannelId;
+                    parameters[p + 2].Value = sample.TimestampUs;
+                    parameters[p + 3].Value = sample.Seq;
+                    parameters[p + 4].Value = sample.Value;
+                }
+                changed += command.ExecuteNonQuery();
+            }
+        }
+        if (whole < samples.Length)
+        {
+            var single = _insertSample ??= PrepareSampleInsert(connection, 1);
+            single.Transaction = transaction;
+            var parameters = single.Parameters;
+            for (int i = whole; i < samples.Length; i++)
+            {
+                ref readonly var sample = ref samples[i];
+                parameters[0].Value = sample.ChamberId;
+                parameters[1].Value = sample.ChannelId;
+                parameters[2].Value = sample.TimestampUs;
+                parameters[3].Value = sample.Seq;
+                parameters[4].Value = sample.Value;
+                changed += single.ExecuteNonQuery();
+            }
+        }
+        return changed;
+    }
+
+    private int InsertSamplesOneByOne(SqliteConnection connection, SqliteTransaction transaction, IngestBatch batch)
+    {
+        var command = _insertSample ??= PrepareSampleInsert(connection, 1);
         command.Transaction = transaction;
         var parameters = command.Parameters;
         var samples = batch.Samples;
@@ -141,6 +196,24 @@ public sealed partial class SqliteRunWatchStore
             }
         }
         return count;
+    }
+
+    /// <summary>A statement inserting <paramref name="rows"/> samples, prepared once per writer connection and reused for every batch.</summary>
+    private static SqliteCommand PrepareSampleInsert(SqliteConnection connection, int rows)
+    {
+        var command = connection.CreateCommand();
+        var sql = new System.Text.StringBuilder("INSERT OR IGNORE INTO samples (chamber_id, channel_id, t_us, seq, value) VALUES ");
+        for (int r = 0; r < rows; r++)
+        {
+            sql.Append(r == 0 ? "" : ", ").Append(CultureInfo.InvariantCulture, $"($c{r}, $h{r}, $t{r}, $s{r}, $v{r})");
+            command.Parameters.Add("$c" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Integer);
+            command.Parameters.Add("$h" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Integer);
+            command.Parameters.Add("$t" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Integer);
+            command.Parameters.Add("$s" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Integer);
+            command.Parameters.Add("$v" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Real);
+        }
+        command.CommandText = sql.ToString();
+        return command;
     }
 
     private static int InsertEvents(SqliteConnection connection, SqliteTransaction transaction, List<EventRecord> events)

@@ -23,6 +23,7 @@ public sealed partial class SqliteRunWatchStore : IRunWatchStore, IDisposable
     private readonly ConcurrentDictionary<(long ChamberId, string Channel), long> _channelIds = new();
     private SqliteConnection? _writer;
     private SqliteCommand? _insertSample;
+    private SqliteCommand? _insertSampleChunk;
     private long _lastWriteTicks;
     private long _lastCheckpointTicks;
 
@@ -273,6 +274,8 @@ public sealed partial class SqliteRunWatchStore : IRunWatchStore, IDisposable
     {
         _insertSample?.Dispose();
         _insertSample = null;
+        _insertSampleChunk?.Dispose();
+        _insertSampleChunk = null;
         _writer?.Dispose();
         _writer = null;
     }

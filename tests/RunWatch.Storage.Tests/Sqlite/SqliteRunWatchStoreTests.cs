@@ -47,6 +47,59 @@ public sealed class SqliteRunWatchStoreTests
     }
 
     [Fact]
+    public async Task WriteBatchAsync_LargeBatchWithSomeRedelivered_MarksExactlyTheNewRowsInserted()
+    {
+        // 300 rows cross several multi-row chunks and a tail; every third was stored by an earlier batch, and the
+        // last row repeats the first one within the batch. Expected flags are computed here, row by row.
+        using var db = new TempDatabase();
+        var chamber = await RegisterAsync(db);
+        long channel = chamber.Channels[0].ChannelId;
+        var earlier = new IngestBatch();
+        for (int i = 0; i < 300; i += 3)
+        {
+            earlier.AddSample(new SampleRow(chamber.ChamberId, channel, UnixMicros.From(T0.AddSeconds(i)), i, 600));
+        }
+        await db.Store.WriteBatchAsync(earlier, CancellationToken.None);
+        var batch = new IngestBatch();
+        var expected = new List<bool>();
+        for (int i = 0; i < 300; i++)
+        {
+            batch.AddSample(new SampleRow(chamber.ChamberId, channel, UnixMicros.From(T0.AddSeconds(i)), i, 601));
+            expected.Add(i % 3 != 0);
+        }
+        batch.AddSample(new SampleRow(chamber.ChamberId, channel, UnixMicros.From(T0.AddSeconds(1)), 1, 602));
+        expected.Add(false);
+
+        var result = await db.Store.WriteBatchAsync(batch, CancellationToken.None);
+
+        Assert.Equal(200, result.SamplesInserted);
+        Assert.Equal(101, result.SampleDuplicates);
+        Assert.Equal(expected.ToArray(), batch.Inserted.ToArray());
+        Assert.Equal(300, db.Count("SELECT COUNT(*) FROM samples"));
+        Assert.Equal(100, db.Count("SELECT COUNT(*) FROM samples WHERE value = 600"));
+    }
+
+    [Fact]
+    public async Task WriteBatchAsync_AllNewAcrossChunksAndTail_StoresEveryRowWithItsValue()
+    {
+        using var db = new TempDatabase();
+        var chamber = await RegisterAsync(db);
+        var batch = new IngestBatch();
+        for (int i = 0; i < 1000; i++)
+        {
+            batch.AddSample(new SampleRow(chamber.ChamberId, chamber.Channels[i % 2].ChannelId, UnixMicros.From(T0.AddMilliseconds(i * 100)), i, i * 0.5));
+        }
+
+        var result = await db.Store.WriteBatchAsync(batch, CancellationToken.None);
+
+        Assert.Equal(1000, result.SamplesInserted);
+        Assert.All(batch.Inserted.ToArray(), Assert.True);
+        var read = await db.Store.GetSamplesAsync("C1", "substrate_tc", T0, T0.AddSeconds(100), 2000, CancellationToken.None);
+        Assert.Equal(Enumerable.Range(0, 500).Select(k => (2 * k) * 0.5).ToArray(), read.Select(s => s.Value).ToArray());
+        Assert.Equal(Enumerable.Range(0, 500).Select(k => (long)(2 * k)).ToArray(), read.Select(s => s.Seq).ToArray());
+    }
+
+    [Fact]
     public async Task GetSamplesAsync_Range_ReturnsHalfOpenIntervalInOrder()
     {
         using var db = new TempDatabase();
