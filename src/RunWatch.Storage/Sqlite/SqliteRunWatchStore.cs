@@ -179,8 +179,11 @@ public sealed partial class SqliteRunWatchStore : IRunWatchStore, IDisposable
         }
         await WriteAsync(connection =>
         {
+            // PASSIVE, never TRUNCATE or RESTART: those wait (up to busy_timeout) for every reader, such as an open
+            // dashboard page, while holding the write lock, and the committer would stall behind them. A complete
+            // passive checkpoint lets the next write restart the WAL, which journal_size_limit then trims.
             using var command = connection.CreateCommand();
-            command.CommandText = "PRAGMA wal_checkpoint(TRUNCATE)";
+            command.CommandText = "PRAGMA wal_checkpoint(PASSIVE)";
             using var reader = command.ExecuteReader();
             reader.Read();
             Log.Checkpointed(_logger, (long)idle.TotalMilliseconds, reader.GetInt32(1), reader.GetInt32(2));
