@@ -26,6 +26,7 @@ internal sealed class MqttConnectionService : BackgroundService, IMessageAcknowl
     private readonly TimeProvider _timeProvider;
     private readonly ILogger _logger;
     private readonly IMqttClient _client;
+    private readonly CoalescingAdapterFactory _adapters = new();
     private readonly SemaphoreSlim _disconnected = new(0, 1);
     private readonly CancellationTokenSource _stopping = new();
     private long _generation;
@@ -46,7 +47,7 @@ internal sealed class MqttConnectionService : BackgroundService, IMessageAcknowl
         _metrics = metrics;
         _timeProvider = timeProvider;
         _logger = logger;
-        _client = new MqttClientFactory().CreateMqttClient();
+        _client = new MqttClientFactory().CreateMqttClient(_adapters);
         _client.ApplicationMessageReceivedAsync += OnMessageAsync;
         _client.DisconnectedAsync += OnDisconnectedAsync;
         health.SetBroker(BrokerConnectionState.Disconnected, timeProvider.GetUtcNow(), null);
@@ -54,21 +55,42 @@ internal sealed class MqttConnectionService : BackgroundService, IMessageAcknowl
 
     public string StatusTopic => MqttClientOptionsFactory.StatusTopic(_ingest, _broker);
 
-    public async ValueTask<bool> AcknowledgeAsync(AcknowledgementTicket ticket, CancellationToken cancellationToken)
+    public async ValueTask<int> AcknowledgeAsync(ReadOnlyMemory<AcknowledgementTicket> tickets, CancellationToken cancellationToken)
     {
         // An ack on a connection that is gone throws inside MQTTnet (#1792); the broker redelivers such messages anyway.
-        if (ticket.Generation != Interlocked.Read(ref _generation) || !_client.IsConnected || ticket.Handle is not MqttApplicationMessageReceivedEventArgs args)
+        long generation = Interlocked.Read(ref _generation);
+        var channel = _adapters.Current;
+        if (!_client.IsConnected || channel is null)
         {
-            return false;
+            return 0;
         }
+        int sent = 0;
+        await channel.HoldAsync(cancellationToken).ConfigureAwait(false);
         try
         {
-            await args.AcknowledgeAsync(cancellationToken).ConfigureAwait(false);
-            return true;
+            for (int i = 0; i < tickets.Length; i++)
+            {
+                var ticket = tickets.Span[i];
+                if (ticket.Generation != generation || ticket.Handle is not MqttApplicationMessageReceivedEventArgs args)
+                {
+                    continue;
+                }
+                await args.AcknowledgeAsync(cancellationToken).ConfigureAwait(false);
+                sent++;
+            }
         }
         catch (Exception ex) when (ex is not OutOfMemoryException)
         {
-            return false;
+            // Connection lost mid-batch: the acks kept so far still go out at release if the transport allows; the broker redelivers the rest.
+        }
+        try
+        {
+            await channel.ReleaseAsync(cancellationToken).ConfigureAwait(false);
+            return sent;
+        }
+        catch (Exception ex) when (ex is not OutOfMemoryException)
+        {
+            return 0;
         }
     }
 

@@ -24,7 +24,7 @@ internal sealed class AcknowledgementStage
         _metrics = metrics;
     }
 
-    /// <summary>Acknowledgements sent so far (tests and diagnostics).</summary>
+    /// <summary>Acknowledgements sent so far (diagnostics).</summary>
     public long Sent => Interlocked.Read(ref _sent);
 
     /// <summary>Hands over the tickets of a committed batch; waits while two earlier batches are still being acknowledged.</summary>
@@ -65,14 +65,12 @@ internal sealed class AcknowledgementStage
                 long started = Stopwatch.GetTimestamp();
                 try
                 {
-                    for (int i = 0; i < batch.Count; i++)
+                    int sent = await _acknowledger.AcknowledgeAsync(batch.Tickets.AsMemory(0, batch.Count), CancellationToken.None).ConfigureAwait(false);
+                    if (sent < batch.Count)
                     {
-                        if (!await _acknowledger.AcknowledgeAsync(batch.Tickets[i], CancellationToken.None).ConfigureAwait(false))
-                        {
-                            _metrics.AckFailures.Inc();
-                        }
+                        _metrics.AckFailures.Inc(batch.Count - sent);
                     }
-                    Interlocked.Add(ref _sent, batch.Count);
+                    Interlocked.Add(ref _sent, sent);
                 }
                 finally
                 {

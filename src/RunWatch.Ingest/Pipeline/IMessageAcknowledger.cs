@@ -1,8 +1,11 @@
 namespace RunWatch.Ingest.Pipeline;
 
-/// <summary>Sends the broker's acknowledgement of a message once its samples are committed.</summary>
+/// <summary>Sends the broker's acknowledgements of messages once their samples are committed.</summary>
 internal interface IMessageAcknowledger
 {
-    /// <summary>Acknowledges the message behind <paramref name="ticket"/>; false when it could not be (stale connection, send failed). Never throws.</summary>
-    ValueTask<bool> AcknowledgeAsync(AcknowledgementTicket ticket, CancellationToken cancellationToken);
+    /// <summary>
+    /// Acknowledges the messages behind <paramref name="tickets"/>, in order; returns how many were sent (the rest:
+    /// stale connection, send failed, and the broker redelivers them). Never throws.
+    /// </summary>
+    ValueTask<int> AcknowledgeAsync(ReadOnlyMemory<AcknowledgementTicket> tickets, CancellationToken cancellationToken);
 }

@@ -112,14 +112,17 @@ public sealed class IngestPipelineTests
 
         public List<int> StoredWhenAcked { get; } = [];
 
-        public ValueTask<bool> AcknowledgeAsync(AcknowledgementTicket ticket, CancellationToken cancellationToken)
+        public ValueTask<int> AcknowledgeAsync(ReadOnlyMemory<AcknowledgementTicket> tickets, CancellationToken cancellationToken)
         {
             lock (Acked)
             {
-                Acked.Add((int)ticket.Handle);
-                StoredWhenAcked.Add(store.Stored);
+                foreach (var ticket in tickets.Span)
+                {
+                    Acked.Add((int)ticket.Handle);
+                    StoredWhenAcked.Add(store.Stored);
+                }
             }
-            return ValueTask.FromResult(true);
+            return ValueTask.FromResult(tickets.Length);
         }
     }
 
