@@ -9,6 +9,7 @@ internal static class BenchmarkCatalog
         new CaptureZoneBenchmark(),
         new ThermalBenchmark(),
         new IngestBenchmark(),
+        new StoreWriteBenchmark(),
         new DashboardBenchmark(),
     ];
 }

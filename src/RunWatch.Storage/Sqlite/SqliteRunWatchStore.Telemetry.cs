@@ -1,5 +1,5 @@
-using System.Globalization;
 using Microsoft.Data.Sqlite;
+using SQLitePCL;
 
 namespace RunWatch.Storage.Sqlite;
 
@@ -17,7 +17,7 @@ public sealed partial class SqliteRunWatchStore
         return WriteAsync(connection =>
         {
             using var transaction = connection.BeginTransaction();
-            int inserted = InsertSamples(connection, transaction, batch);
+            int inserted = InsertSamples(connection, batch);
             int eventsInserted = InsertEvents(connection, transaction, batch.Events);
             int deadLetters = InsertDeadLetters(connection, transaction, batch.DeadLetters);
             transaction.Commit();
@@ -102,93 +102,37 @@ public sealed partial class SqliteRunWatchStore
         }, cancellationToken);
     }
 
-    /// <summary>Rows per multi-row INSERT: 5 parameters each, far below SQLite's parameter limit.</summary>
-    private const int SampleChunk = 64;
-
-    private int InsertSamples(SqliteConnection connection, SqliteTransaction transaction, IngestBatch batch)
+    /// <summary>
+    /// Inserts the batch's samples through one statement prepared on the writer connection and bound by position
+    /// with SQLite's own calls (SQLitePCLRaw, underneath Microsoft.Data.Sqlite): no boxing of values, no parameter
+    /// lookup by name, no allocation per row. The transaction is the caller's. Each row learns whether it was new.
+    /// </summary>
+    private int InsertSamples(SqliteConnection connection, IngestBatch batch)
     {
         if (batch.SampleCount == 0)
         {
             return 0;
         }
-        // Fast path: multi-row INSERTs inside a savepoint. When every row is new (the normal case) the change count
-        // equals the row count and every row is marked inserted. Otherwise (a redelivery, a duplicate within the
-        // batch) the savepoint is rolled back and the rows go one by one, so each row learns whether it was new.
-        const string Savepoint = "samples_batch";
-        transaction.Save(Savepoint);
-        if (InsertSampleChunks(connection, transaction, batch) == batch.SampleCount)
-        {
-            batch.InsertedForWrite.Fill(true);
-            transaction.Release(Savepoint);
-            return batch.SampleCount;
-        }
-        transaction.Rollback(Savepoint);
-        transaction.Release(Savepoint);
-        return InsertSamplesOneByOne(connection, transaction, batch);
-    }
-
-    /// <summary>Inserts the batch in chunks of <see cref="SampleChunk"/> rows (the tail one row at a time); returns the rows changed.</summary>
-    private int InsertSampleChunks(SqliteConnection connection, SqliteTransaction transaction, IngestBatch batch)
-    {
-        var samples = batch.Samples;
-        int whole = samples.Length / SampleChunk * SampleChunk;
-        int changed = 0;
-        if (whole > 0)
-        {
-            var command = _insertSampleChunk ??= PrepareSampleInsert(connection, SampleChunk);
-            command.Transaction = transaction;
-            var parameters = command.Parameters;
-            for (int start = 0; start < whole; start += SampleChunk)
-            {
-                for (int r = 0; r < SampleChunk; r++)
-                {
-                    ref readonly var sample = ref samples[start + r];
-                    int p = r * 5;
-                    parameters[p].Value = sample.ChamberId;
-                    parameters[p + 1].Value = sample.ChannelId;
-                    parameters[p + 2].Value = sample.TimestampUs;
-                    parameters[p + 3].Value = sample.Seq;
-                    parameters[p + 4].Value = sample.Value;
-                }
-                changed += command.ExecuteNonQuery();
-            }
-        }
-        if (whole < samples.Length)
-        {
-            var single = _insertSample ??= PrepareSampleInsert(connection, 1);
-            single.Transaction = transaction;
-            var parameters = single.Parameters;
-            for (int i = whole; i < samples.Length; i++)
-            {
-                ref readonly var sample = ref samples[i];
-                parameters[0].Value = sample.ChamberId;
-                parameters[1].Value = sample.ChannelId;
-                parameters[2].Value = sample.TimestampUs;
-                parameters[3].Value = sample.Seq;
-                parameters[4].Value = sample.Value;
-                changed += single.ExecuteNonQuery();
-            }
-        }
-        return changed;
-    }
-
-    private int InsertSamplesOneByOne(SqliteConnection connection, SqliteTransaction transaction, IngestBatch batch)
-    {
-        var command = _insertSample ??= PrepareSampleInsert(connection, 1);
-        command.Transaction = transaction;
-        var parameters = command.Parameters;
+        var db = connection.Handle!;
+        var statement = _insertSample ??= PrepareSampleInsert(db);
         var samples = batch.Samples;
         var inserted = batch.InsertedForWrite;
         int count = 0;
         for (int i = 0; i < samples.Length; i++)
         {
             ref readonly var sample = ref samples[i];
-            parameters[0].Value = sample.ChamberId;
-            parameters[1].Value = sample.ChannelId;
-            parameters[2].Value = sample.TimestampUs;
-            parameters[3].Value = sample.Seq;
-            parameters[4].Value = sample.Value;
-            bool isNew = command.ExecuteNonQuery() == 1;
+            raw.sqlite3_bind_int64(statement, 1, sample.ChamberId);
+            raw.sqlite3_bind_int64(statement, 2, sample.ChannelId);
+            raw.sqlite3_bind_int64(statement, 3, sample.TimestampUs);
+            raw.sqlite3_bind_int64(statement, 4, sample.Seq);
+            raw.sqlite3_bind_double(statement, 5, sample.Value);
+            int rc = raw.sqlite3_step(statement);
+            raw.sqlite3_reset(statement);
+            if (rc != raw.SQLITE_DONE)
+            {
+                throw new SqliteException("sample insert failed: " + raw.sqlite3_errmsg(db).utf8_to_string(), rc);
+            }
+            bool isNew = raw.sqlite3_changes(db) == 1;
             inserted[i] = isNew;
             if (isNew)
             {
@@ -198,22 +142,15 @@ public sealed partial class SqliteRunWatchStore
         return count;
     }
 
-    /// <summary>A statement inserting <paramref name="rows"/> samples, prepared once per writer connection and reused for every batch.</summary>
-    private static SqliteCommand PrepareSampleInsert(SqliteConnection connection, int rows)
+    private static sqlite3_stmt PrepareSampleInsert(sqlite3 db)
     {
-        var command = connection.CreateCommand();
-        var sql = new System.Text.StringBuilder("INSERT OR IGNORE INTO samples (chamber_id, channel_id, t_us, seq, value) VALUES ");
-        for (int r = 0; r < rows; r++)
+        int rc = raw.sqlite3_prepare_v2(db, "INSERT OR IGNORE INTO samples (chamber_id, channel_id, t_us, seq, value) VALUES (?1, ?2, ?3, ?4, ?5)", out var statement);
+        if (rc != raw.SQLITE_OK)
         {
-            sql.Append(r == 0 ? "" : ", ").Append(CultureInfo.InvariantCulture, $"($c{r}, $h{r}, $t{r}, $s{r}, $v{r})");
-            command.Parameters.Add("$c" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Integer);
-            command.Parameters.Add("$h" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Integer);
-            command.Parameters.Add("$t" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Integer);
-            command.Parameters.Add("$s" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Integer);
-            command.Parameters.Add("$v" + r.ToString(CultureInfo.InvariantCulture), SqliteType.Real);
+            statement.Dispose();
+            throw new SqliteException("cannot prepare the sample insert: " + raw.sqlite3_errmsg(db).utf8_to_string(), rc);
         }
-        command.CommandText = sql.ToString();
-        return command;
+        return statement;
     }
 
     private static int InsertEvents(SqliteConnection connection, SqliteTransaction transaction, List<EventRecord> events)

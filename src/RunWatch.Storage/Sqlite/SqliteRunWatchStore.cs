@@ -22,8 +22,7 @@ public sealed partial class SqliteRunWatchStore : IRunWatchStore, IDisposable
     private readonly ConcurrentDictionary<string, long> _chamberIds = new(StringComparer.Ordinal);
     private readonly ConcurrentDictionary<(long ChamberId, string Channel), long> _channelIds = new();
     private SqliteConnection? _writer;
-    private SqliteCommand? _insertSample;
-    private SqliteCommand? _insertSampleChunk;
+    private SQLitePCL.sqlite3_stmt? _insertSample;
     private long _lastWriteTicks;
     private long _lastCheckpointTicks;
 
@@ -277,8 +276,6 @@ public sealed partial class SqliteRunWatchStore : IRunWatchStore, IDisposable
     {
         _insertSample?.Dispose();
         _insertSample = null;
-        _insertSampleChunk?.Dispose();
-        _insertSampleChunk = null;
         _writer?.Dispose();
         _writer = null;
     }
