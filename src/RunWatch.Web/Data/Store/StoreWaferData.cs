@@ -1,6 +1,9 @@
 using System.Globalization;
 using System.Text.Json;
+using RunWatch.Core.Model;
 using RunWatch.Storage;
+using CoreArrheniusFit = RunWatch.Core.Model.ArrheniusFit;
+using CoreArrheniusPoint = RunWatch.Core.Model.ArrheniusPoint;
 
 namespace RunWatch.Web.Data.Store;
 
@@ -119,15 +122,16 @@ public sealed class StoreWaferData(IWaferStore wafers)
     public async Task<ProcessModelView?> GetProcessModelAsync(string process, CancellationToken cancellationToken)
     {
         var radius = await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false);
-        if (radius.Count == 0)
+        var arrheniusFits = await wafers.GetModelFitsAsync(process, ArrheniusModel, 50, cancellationToken).ConfigureAwait(false);
+        if (radius.Count == 0 && arrheniusFits.Count == 0)
         {
             return null;
         }
-        ModelFitRecord? accepted = radius.FirstOrDefault(f => f.AcceptedAt is not null);
-        ModelFitRecord? candidate = radius.FirstOrDefault(f => f.AcceptedAt is null && (accepted is null || f.Id > accepted.Id));
-        RadiusFit current = ToRadiusFit(accepted ?? radius[0]);
-        var arrheniusFits = await wafers.GetModelFitsAsync(process, ArrheniusModel, 1, cancellationToken).ConfigureAwait(false);
-        ArrheniusFit arrhenius = arrheniusFits.Count > 0 ? ToArrhenius(arrheniusFits[0]) : new ArrheniusFit(double.NaN, double.NaN, double.NaN);
+        var (accepted, candidate) = AcceptedAndProposed(radius);
+        var (acceptedArrhenius, candidateArrhenius) = AcceptedAndProposed(arrheniusFits);
+        ModelFitRecord? shown = accepted ?? candidate;
+        RadiusFit current = shown is null ? new RadiusFit(RadiusModelForm.Linear, double.NaN, double.NaN, double.NaN, double.NaN, 0, DateTimeOffset.MinValue) : ToRadiusFit(shown);
+        ArrheniusFit arrhenius = (acceptedArrhenius ?? candidateArrhenius) is { } a ? ToArrhenius(a) : new ArrheniusFit(double.NaN, double.NaN, double.NaN);
         var points = new List<ArrheniusPoint>();
         foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, CaptureRadiusModel, 500, cancellationToken).ConfigureAwait(false))
         {
@@ -142,18 +146,105 @@ public sealed class StoreWaferData(IWaferStore wafers)
                 points.Add(new ArrheniusPoint(tK, l * l / (c * t)));
             }
         }
-        return new ProcessModelView(process, current, candidate is null || accepted is null ? null : ToRadiusFit(candidate), arrhenius, [], points,
-            accepted?.AcceptedBy, accepted?.AcceptedAt);
+        // With nothing accepted yet the newest proposal is shown as the model and offered for acceptance.
+        return new ProcessModelView(process, current, candidate is null ? null : ToRadiusFit(candidate), arrhenius, [], points,
+            accepted?.AcceptedBy, accepted?.AcceptedAt, acceptedArrhenius is not null && candidateArrhenius is not null ? ToArrhenius(candidateArrhenius) : null);
     }
 
-    /// <summary>Accepts the newest proposed radius model of the process in the name of <paramref name="user"/>.</summary>
-    public async Task AcceptModelAsync(string process, string user, CancellationToken cancellationToken)
+    /// <summary>
+    /// Accepts, in the name of <paramref name="user"/>, the newest proposed radius model and the newest proposed
+    /// Arrhenius calibration of the process (each when newer than the one accepted); returns what was accepted.
+    /// </summary>
+    /// <exception cref="InvalidOperationException">Nothing is proposed.</exception>
+    public async Task<string> AcceptModelAsync(string process, string user, CancellationToken cancellationToken)
     {
-        var radius = await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false);
-        ModelFitRecord proposed = radius.FirstOrDefault(f => f.AcceptedAt is null)
-            ?? throw new InvalidOperationException($"process {process} has no proposed radius model to accept");
-        await wafers.AcceptModelFitAsync(proposed.Id, user, cancellationToken).ConfigureAwait(false);
+        var accepted = new List<string>();
+        foreach (string model in new[] { RadiusModel, ArrheniusModel })
+        {
+            var fits = await wafers.GetModelFitsAsync(process, model, 50, cancellationToken).ConfigureAwait(false);
+            if (AcceptedAndProposed(fits).Proposed is { } proposed)
+            {
+                await wafers.AcceptModelFitAsync(proposed.Id, user, cancellationToken).ConfigureAwait(false);
+                accepted.Add(model == RadiusModel ? "radius model " + Describe(ToRadiusFit(proposed)) : "Arrhenius fit " + Describe(ToArrhenius(proposed)));
+            }
+        }
+        if (accepted.Count == 0)
+        {
+            throw new InvalidOperationException($"Process {process} has no proposed model to accept; refit first.");
+        }
+        return "accepted " + string.Join("; ", accepted);
     }
+
+    /// <summary>
+    /// The model the planner uses for <paramref name="process"/>: its accepted radius model and accepted Arrhenius
+    /// calibration, each replaced by the configured default (<paramref name="defaults"/>) when none is accepted.
+    /// The convention factor c is the one of the capture radii the accepted calibration was fitted on.
+    /// </summary>
+    public async Task<PlannerModel> GetPlannerModelAsync(string process, PlannerOptions defaults, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(defaults);
+        ModelFitRecord? radius = process.Length == 0 ? null
+            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false)).Accepted;
+        ModelFitRecord? arrhenius = process.Length == 0 ? null
+            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, ArrheniusModel, 50, cancellationToken).ConfigureAwait(false)).Accepted;
+        RadiusModelForm form = RadiusModelForm.Linear;
+        double a = defaults.RadiusInterceptNm;
+        double b = defaults.RadiusSlopeNm;
+        if (radius is not null)
+        {
+            RadiusModelFit fit = ModelJson.Deserialize<RadiusModelFit>(radius.ParamsJson);
+            (form, a, b) = (fit.Kind == RadiusModelKind.PowerLaw ? RadiusModelForm.PowerLaw : RadiusModelForm.Linear, fit.Parameters[0].Value, fit.Parameters[1].Value);
+        }
+        double d0 = defaults.D0CmSquaredPerSecond;
+        double ea = defaults.ActivationEnergyEv;
+        double c = defaults.ConventionFactor;
+        if (arrhenius is not null)
+        {
+            CoreArrheniusFit fit = ModelJson.Deserialize<CoreArrheniusFit>(arrhenius.ParamsJson);
+            (d0, ea) = (fit.Prefactor.Value, fit.ActivationEnergy.Value);
+            c = await ConventionFactorAsync(process, fit.WaferIds, cancellationToken).ConfigureAwait(false) ?? c;
+        }
+        return new PlannerModel(process, form, a, b, radius?.AcceptedBy, radius?.AcceptedAt, d0, ea, c, arrhenius?.AcceptedBy, arrhenius?.AcceptedAt);
+    }
+
+    /// <summary>The configured defaults only, for a process without accepted models or a host without wafer tables.</summary>
+    public static PlannerModel DefaultPlannerModel(string process, PlannerOptions defaults)
+    {
+        ArgumentNullException.ThrowIfNull(defaults);
+        return new PlannerModel(process, RadiusModelForm.Linear, defaults.RadiusInterceptNm, defaults.RadiusSlopeNm, null, null,
+            defaults.D0CmSquaredPerSecond, defaults.ActivationEnergyEv, defaults.ConventionFactor, null, null);
+    }
+
+    private async Task<double?> ConventionFactorAsync(string process, IReadOnlyList<string> waferIds, CancellationToken cancellationToken)
+    {
+        var wanted = new HashSet<string>(waferIds, StringComparer.Ordinal);
+        var counts = new Dictionary<double, int>();
+        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, CaptureRadiusModel, 1000, cancellationToken).ConfigureAwait(false))
+        {
+            CoreArrheniusPoint point = ModelJson.Deserialize<CoreArrheniusPoint>(r.ParamsJson);
+            if (wanted.Remove(point.WaferId) && point.ConventionFactor > 0)
+            {
+                counts[point.ConventionFactor] = counts.GetValueOrDefault(point.ConventionFactor) + 1;
+            }
+        }
+        // The daemon uses one convention per deployment; should points disagree, the most common one is used.
+        return counts.Count == 0 ? null : counts.MaxBy(kv => kv.Value).Key;
+    }
+
+    /// <summary>The newest accepted fit and the newest proposal made after it (fits are newest first).</summary>
+    private static (ModelFitRecord? Accepted, ModelFitRecord? Proposed) AcceptedAndProposed(IReadOnlyList<ModelFitRecord> fits)
+    {
+        ModelFitRecord? accepted = fits.FirstOrDefault(f => f.AcceptedAt is not null);
+        ModelFitRecord? proposed = fits.FirstOrDefault(f => f.AcceptedAt is null && (accepted is null || f.Id > accepted.Id));
+        return (accepted, proposed);
+    }
+
+    private static string Describe(RadiusFit f) => f.Form == RadiusModelForm.Linear
+        ? string.Create(CultureInfo.InvariantCulture, $"r = {f.A:0.###} + {f.B:0.###}·Â nm")
+        : string.Create(CultureInfo.InvariantCulture, $"r = {f.A:0.###}·Â^{f.B:0.####} nm");
+
+    private static string Describe(ArrheniusFit f) =>
+        string.Create(CultureInfo.InvariantCulture, $"Ea {f.ActivationEnergyEv:0.###} eV, D0 {f.D0CmSquaredPerSecond:0.###e+0} cm²/s");
 
     private static RadiusFit ToRadiusFit(ModelFitRecord r)
     {
