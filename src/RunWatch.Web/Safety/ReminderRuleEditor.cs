@@ -74,6 +74,8 @@ public sealed class ReminderRuleEditor(ReminderRuleSet rules, IDashboardCommands
         string detail = string.Create(CultureInfo.InvariantCulture, $"threshold {rule.Threshold} → {threshold} {rule.Unit}");
         if (store is not null)
         {
+            // Normally seeded at start (LoadAsync); a host that skipped it gets the rule's row now.
+            await store.SeedReminderSettingsAsync([new ReminderSetting(rule.Id, rule.Threshold, rule.Unit, rule.Window, now, SeedActor)], cancellationToken).ConfigureAwait(false);
             await store.SaveReminderSettingAsync(new ReminderSetting(rule.Id, threshold, rule.Unit, rule.Window, now, user),
                 new Storage.AuditEntry(now, user, "reminder edited", rule.Id, AuditDetail.Json(detail)), cancellationToken).ConfigureAwait(false);
         }
