@@ -25,7 +25,7 @@ internal static class QcSpecRows
         double? target = s.TargetMeanRadiusNm;
         return
         [
-            new(WireCount, s.MinWireCount, null, "wires", null, null, recipe, SpecSides.Lower),
+            new(WireCount, s.MinWireCount, null, "wires", null, null, recipe, SpecSides.Lower, HasWarn: false),
             new(MeanRadius, target - s.MeanRadiusToleranceNm, target + s.MeanRadiusToleranceNm, "nm",
                 target - s.MeanRadiusWarnToleranceNm, target + s.MeanRadiusWarnToleranceNm, recipe, SpecSides.Both),
             new(RadiusCv, null, s.MaxRadiusCv, "fraction", null, s.WarnRadiusCv, recipe, SpecSides.Upper),
@@ -55,6 +55,10 @@ internal static class QcSpecRows
             {
                 throw new ArgumentException($"Not saved: {row.Name} limits must be finite numbers.");
             }
+        }
+        if (!row.HasWarn && (edit.WarnMin is not null || edit.WarnMax is not null))
+        {
+            throw new ArgumentException($"Not saved: {row.Name} has no warn limit; leave the warn boxes empty.");
         }
         if (row.Sides == SpecSides.Lower && (edit.Max is not null || edit.WarnMax is not null))
         {

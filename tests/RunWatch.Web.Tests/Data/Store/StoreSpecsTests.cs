@@ -60,6 +60,7 @@ public sealed class StoreSpecsTests : IDisposable
         { "vertical yield", 1.5, null, null, null, "fraction", "fraction in [0, 1]" },
         { "wire count", 12.5, null, null, null, "wires", "whole number" },
         { "wire count", 10, 20, null, null, "wires", "lower limit only" },
+        { "wire count", 10, null, 20, null, "wires", "no warn limit" },
     };
 
     [Theory]
