@@ -40,12 +40,15 @@ public static partial class DashboardHostingExtensions
         }
         var services = builder.Services;
         services.AddOptions<DashboardOptions>().Bind(builder.Configuration.GetSection(DashboardOptions.SectionName))
-            .ValidateDataAnnotations().ValidateOnStart();
+            .ValidateDataAnnotations()
+            .Validate(o => ReminderRuleSet.Check(DefaultReminders.All, o.ReminderThresholds).Count == 0,
+                "RunWatch:Dashboard:ReminderThresholds names an unknown rule, a rule without threshold, or a value that is not finite")
+            .ValidateOnStart();
         services.TryAddSingleton(TimeProvider.System);
         services.TryAddSingleton<DashboardClock>();
         services.TryAddSingleton<LiveUpdateHub>();
         services.TryAddSingleton<ITelemetryNotifier>(sp => sp.GetRequiredService<LiveUpdateHub>());
-        services.TryAddSingleton(sp => new ReminderRuleSet(DefaultReminders.All));
+        services.TryAddSingleton(sp => ReminderRuleSet.WithThresholds(DefaultReminders.All, sp.GetRequiredService<IOptions<DashboardOptions>>().Value.ReminderThresholds));
         services.TryAddSingleton<ReminderMonitor>();
         services.TryAddSingleton<ReminderRuleEditor>();
         services.TryAddSingleton(sp =>

@@ -36,7 +36,7 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
         Directory.Delete(_folder, recursive: true);
     }
 
-    private async Task<WebApplication> StartAsync()
+    private async Task<WebApplication> StartAsync(double ventThresholdC)
     {
         int port = FreePort.Next();
         var settings = new Dictionary<string, string?>
@@ -55,6 +55,7 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
             ["Qc:Recipes:nw-inv:TargetMeanRadiusNm"] = "45",
             ["Qc:Recipes:nw-inv:MeanRadiusToleranceNm"] = "10",
             ["Qc:Recipes:nw-inv:MinWireCount"] = "50",
+            ["RunWatch:Dashboard:ReminderThresholds:substrate-above-vent-limit"] = ventThresholdC.ToString(CultureInfo.InvariantCulture),
         };
         var builder = WebApplication.CreateBuilder(new WebApplicationOptions { EnvironmentName = Environments.Development, ApplicationName = "runwatch" });
         builder.Configuration.AddInMemoryCollection(settings);
@@ -102,7 +103,7 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
         var points = new List<CoreArrheniusPoint>();
         var wires = new List<FieldWire>();
         PlannerResult planned;
-        await using (var app = await StartAsync())
+        await using (var app = await StartAsync(ventThresholdC: 180))
         {
             var wafers = app.Services.GetRequiredService<IWaferStore>();
             var commands = app.Services.GetRequiredService<IDashboardCommands>();
@@ -149,7 +150,8 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
             await app.StopAsync();
         }
 
-        await using (var restarted = await StartAsync())
+        // Configuration changed meanwhile: the stored values stay in force; configuration only seeds.
+        await using (var restarted = await StartAsync(ventThresholdC: 170))
         {
             var queries = restarted.Services.GetRequiredService<IDashboardQueries>();
             SpecEntry mean = (await queries.GetSpecsAsync(CancellationToken.None)).Single(s => s.Recipe == Process && s.Name == "mean radius");
@@ -157,6 +159,7 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
             Assert.Equal(25, (await restarted.Services.GetRequiredService<QcSpecificationCatalog>().SpecificationForAsync(Process, CancellationToken.None)).TargetMeanRadiusNm);
             ReminderRule rule = restarted.Services.GetRequiredService<ReminderRuleSet>().Rules.Single(r => r.Id == "run-ended-still-hot");
             Assert.Equal(80, rule.Threshold);
+            Assert.Equal(180, restarted.Services.GetRequiredService<ReminderRuleSet>().Rules.Single(r => r.Id == "substrate-above-vent-limit").Threshold);
             ProcessModelView model = (await queries.GetProcessModelAsync(Process, CancellationToken.None))!;
             Assert.Equal("eng-2", model.AcceptedBy);
             PlannerResult again = await restarted.Services.GetRequiredService<IPlannerEngine>().PredictAsync(
