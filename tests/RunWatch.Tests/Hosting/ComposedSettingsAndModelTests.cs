@@ -162,6 +162,7 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
             Assert.Equal(180, restarted.Services.GetRequiredService<ReminderRuleSet>().Rules.Single(r => r.Id == "substrate-above-vent-limit").Threshold);
             ProcessModelView model = (await queries.GetProcessModelAsync(Process, CancellationToken.None))!;
             Assert.Equal("eng-2", model.AcceptedBy);
+            Assert.Equal(wires.Count, model.RadiusData.Count); // every seeded wire is vertical and interior
             PlannerResult again = await restarted.Services.GetRequiredService<IPlannerEngine>().PredictAsync(
                 new PlannerInput(Process, [new ProfilePoint(0, 600), new ProfilePoint(25, 600)], TimeSpan.FromMinutes(25), 1.0), CancellationToken.None);
             Assert.Equal(planned.LEffNm, again.LEffNm);

@@ -16,6 +16,7 @@ public sealed class StoreWaferData(IWaferStore wafers)
     private const string RadiusModel = "radius";
     private const string CaptureRadiusModel = "capture-radius";
     private const string ArrheniusModel = "arrhenius";
+    private const int MaxRadiusPoints = 5000;
 
     public async Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken)
     {
@@ -146,8 +147,9 @@ public sealed class StoreWaferData(IWaferStore wafers)
                 points.Add(new ArrheniusPoint(tK, l * l / (c * t)));
             }
         }
+        IReadOnlyList<ModelPoint> wires = await RadiusDataAsync(process, cancellationToken).ConfigureAwait(false);
         // With nothing accepted yet the newest proposal is shown as the model and offered for acceptance.
-        return new ProcessModelView(process, current, candidate is null ? null : ToRadiusFit(candidate), arrhenius, [], points,
+        return new ProcessModelView(process, current, candidate is null ? null : ToRadiusFit(candidate), arrhenius, wires, points,
             accepted?.AcceptedBy, accepted?.AcceptedAt, acceptedArrhenius is not null && candidateArrhenius is not null ? ToArrhenius(candidateArrhenius) : null);
     }
 
@@ -230,6 +232,49 @@ public sealed class StoreWaferData(IWaferStore wafers)
         // The daemon uses one convention per deployment; should points disagree, the most common one is used.
         return counts.Count == 0 ? null : counts.MaxBy(kv => kv.Value).Key;
     }
+
+    /// <summary>
+    /// The wires a refit pools (vertical, clear of edge and band, with a normalised capture area), from the latest
+    /// analysis of each analysed field of the process's wafers, at most <see cref="MaxRadiusPoints"/> for the chart.
+    /// </summary>
+    private async Task<IReadOnlyList<ModelPoint>> RadiusDataAsync(string process, CancellationToken cancellationToken)
+    {
+        var points = new List<ModelPoint>();
+        foreach (WaferRecord wafer in await wafers.ListWafersAsync(1000, cancellationToken).ConfigureAwait(false))
+        {
+            if (wafer.Process != process)
+            {
+                continue;
+            }
+            foreach (FieldRecord field in await wafers.GetFieldsOfWaferAsync(wafer.Name, cancellationToken).ConfigureAwait(false))
+            {
+                AnalysisRecord? analysis = field.Status == FieldStatus.Analysed
+                    ? await wafers.GetLatestAnalysisAsync(field.Id, cancellationToken).ConfigureAwait(false)
+                    : null;
+                if (analysis?.ResultsJson is not { } json)
+                {
+                    continue;
+                }
+                using var doc = JsonDocument.Parse(json);
+                if (!doc.RootElement.TryGetProperty("wires", out JsonElement list) || list.ValueKind != JsonValueKind.Array)
+                {
+                    continue;
+                }
+                foreach (JsonElement w in list.EnumerateArray())
+                {
+                    double a = Get(w, "zoneNormalised");
+                    double r = Get(w, "radiusNm");
+                    if (points.Count < MaxRadiusPoints && Flag(w, "vertical") && Flag(w, "interior") && a > 0 && double.IsFinite(r))
+                    {
+                        points.Add(new ModelPoint(a, r, wafer.Name));
+                    }
+                }
+            }
+        }
+        return points;
+    }
+
+    private static bool Flag(JsonElement e, string name) => e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.True;
 
     /// <summary>The newest accepted fit and the newest proposal made after it (fits are newest first).</summary>
     private static (ModelFitRecord? Accepted, ModelFitRecord? Proposed) AcceptedAndProposed(IReadOnlyList<ModelFitRecord> fits)

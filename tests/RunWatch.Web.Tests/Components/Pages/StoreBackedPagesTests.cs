@@ -130,6 +130,31 @@ public sealed class StoreBackedPagesTests : IDisposable
     }
 
     [Fact]
+    public async Task GetProcessModelAsync_StoredAnalyses_RadiusDataAreTheCountedWires()
+    {
+        await _harness.Store.UpsertWaferAsync("W-INV-1", null, "nw-inv", CancellationToken.None);
+        var (field, _) = await _harness.Store.AddFieldAsync(new FieldRecord { Wafer = "W-INV-1", FilePath = "f.png", RelativePath = "f.png", Sha256 = "s1", Status = FieldStatus.Analysed },
+            CancellationToken.None);
+        // As the pipeline stores a field result (camelCase JSON): one counted wire, one leaning, one at the edge, one guarded.
+        await _harness.Store.SaveAnalysisAsync(new AnalysisRecord
+        {
+            FieldId = field.Id, Status = "done",
+            ResultsJson = """
+                {"wires":[{"id":0,"radiusNm":31.5,"vertical":true,"interior":true,"zoneNormalised":0.8},
+                          {"id":1,"radiusNm":30,"vertical":false,"interior":true,"zoneNormalised":0.7},
+                          {"id":2,"radiusNm":29,"vertical":true,"interior":false,"zoneNormalised":0.6},
+                          {"id":3,"radiusNm":28,"vertical":true,"interior":true,"zoneNormalised":null}]}
+                """,
+        }, CancellationToken.None);
+        await _harness.Store.SaveModelFitAsync(new ModelFitRecord { Process = "nw-inv", Model = "radius", ParamsJson = """{"kind":"Linear","parameters":[{"value":20},{"value":22}],"count":1}""" },
+            CancellationToken.None);
+
+        ProcessModelView view = (await _harness.Data.GetProcessModelAsync("nw-inv", CancellationToken.None))!;
+
+        Assert.Equal(new ModelPoint(0.8, 31.5, "W-INV-1"), Assert.Single(view.RadiusData));
+    }
+
+    [Fact]
     public async Task Planner_AcceptedModel_ShowsWhoAcceptedIt()
     {
         await _harness.Store.UpsertWaferAsync("W-INV-1", null, "nw-inv", CancellationToken.None);
