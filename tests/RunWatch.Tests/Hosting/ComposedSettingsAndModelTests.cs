@@ -1,4 +1,7 @@
 using System.Globalization;
+using System.Net;
+using System.Net.Http.Json;
+using System.Text.RegularExpressions;
 using System.Text.Json;
 using MathNet.Numerics;
 using Microsoft.AspNetCore.Builder;
@@ -14,6 +17,7 @@ using RunWatch.Storage;
 using RunWatch.Testing.Mqtt;
 using RunWatch.Web.Data;
 using RunWatch.Web.Safety;
+using RunWatch.Web.Security;
 using Xunit;
 using CoreArrheniusFit = RunWatch.Core.Model.ArrheniusFit;
 using CoreArrheniusPoint = RunWatch.Core.Model.ArrheniusPoint;
@@ -28,7 +32,9 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
 {
     private const double BoltzmannEvPerK = 1.380649e-23 / 1.602176634e-19; // CONFIRMED (CHECKS.md §1): exact SI constants
     private const string Process = "nw-inv";
+    private const string Password = "an-invented-test-password";
     private readonly string _folder = Directory.CreateTempSubdirectory("runwatch-composed-").FullName;
+    private string _baseUrl = "";
 
     public void Dispose()
     {
@@ -41,7 +47,7 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
         int port = FreePort.Next();
         var settings = new Dictionary<string, string?>
         {
-            ["Urls"] = "http://127.0.0.1:" + FreePort.Next().ToString(CultureInfo.InvariantCulture),
+            ["Urls"] = _baseUrl = "http://127.0.0.1:" + FreePort.Next().ToString(CultureInfo.InvariantCulture),
             ["ChambersFile"] = Path.Combine(_folder, "none.json"),
             ["Storage:DataDirectory"] = _folder,
             ["Broker:Mode"] = "Embedded",
@@ -62,6 +68,10 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
         builder.WebHost.UseStaticWebAssets();
         builder.AddRunWatch([]);
         var app = builder.Build();
+        var users = app.Services.GetRequiredService<UserDirectory>();
+        users.AddWithPassword("ada-admin", DashboardRoles.Admin, Password);
+        users.AddWithPassword("eng-1", DashboardRoles.Engineer, Password);
+        users.AddWithPassword("vic-viewer", DashboardRoles.Viewer, Password);
         app.MapRunWatch();
         await app.StartAsync();
         return app;
@@ -173,5 +183,58 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
             Assert.Contains(audit, a => a.Action == "model accepted" && a.User == "eng-2");
             await restarted.StopAsync();
         }
+    }
+
+    /// <summary>Logs in through the login form (antiforgery token included), as a lab system would, and keeps the cookie.</summary>
+    private async Task<HttpClient> LoginAsync(string user)
+    {
+        var client = new HttpClient(new HttpClientHandler { CookieContainer = new CookieContainer(), AllowAutoRedirect = false }) { BaseAddress = new Uri(_baseUrl) };
+        string page = await client.GetStringAsync("/login");
+        string input = Regex.Match(page, "<input[^>]*__RequestVerificationToken[^>]*>").Value;
+        string token = WebUtility.HtmlDecode(Regex.Match(input, "value=\"([^\"]+)\"").Groups[1].Value);
+        using var response = await client.PostAsync("/account/login", new FormUrlEncodedContent(new Dictionary<string, string>
+        {
+            ["username"] = user, ["password"] = Password, ["__RequestVerificationToken"] = token,
+        }));
+        Assert.Equal(HttpStatusCode.Redirect, response.StatusCode);
+        Assert.Equal("/", response.Headers.Location?.OriginalString);
+        return client;
+    }
+
+    [Fact]
+    public async Task Api_SpecEditAndRefit_RolesEnforcedAndInvalidEditRefused()
+    {
+        await using var app = await StartAsync(ventThresholdC: 200);
+        using var admin = await LoginAsync("ada-admin");
+        using var engineer = await LoginAsync("eng-1");
+        using var viewer = await LoginAsync("vic-viewer");
+        var valid = new { recipe = Process, name = "mean radius", min = 30.0, max = 40.0, unit = "nm" };
+
+        using var byViewer = await viewer.PostAsJsonAsync("/api/specs", valid);
+        using var byEngineer = await engineer.PostAsJsonAsync("/api/specs", valid);
+        using var invalid = await admin.PostAsJsonAsync("/api/specs", new { recipe = Process, name = "mean radius", min = 40.0, max = 30.0, unit = "nm" });
+        using var wrongUnit = await admin.PostAsJsonAsync("/api/specs", new { recipe = Process, name = "mean radius", min = 30.0, max = 40.0, unit = "µm" });
+        var specBeforeValid = await app.Services.GetRequiredService<QcSpecificationCatalog>().SpecificationForAsync(Process, CancellationToken.None);
+        using var byAdmin = await admin.PostAsJsonAsync("/api/specs", valid);
+        using var refitByViewer = await viewer.PostAsync($"/api/models/{Process}/refit", null);
+        using var refitByEngineer = await engineer.PostAsync($"/api/models/{Process}/refit", null);
+        string audit = await admin.GetStringAsync("/api/audit");
+
+        Assert.Equal(HttpStatusCode.Forbidden, byViewer.StatusCode);
+        Assert.Equal(HttpStatusCode.Forbidden, byEngineer.StatusCode);
+        Assert.Equal(HttpStatusCode.BadRequest, invalid.StatusCode);
+        Assert.Contains("must be below the upper", await invalid.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+        Assert.Equal(HttpStatusCode.BadRequest, wrongUnit.StatusCode);
+        Assert.Equal((45.0, 10.0), (specBeforeValid.TargetMeanRadiusNm!.Value, specBeforeValid.MeanRadiusToleranceNm!.Value)); // refused edits changed nothing
+        Assert.Equal(HttpStatusCode.NoContent, byAdmin.StatusCode);
+        var spec = await app.Services.GetRequiredService<QcSpecificationCatalog>().SpecificationForAsync(Process, CancellationToken.None);
+        Assert.Equal((35.0, 5.0), (spec.TargetMeanRadiusNm!.Value, spec.MeanRadiusToleranceNm!.Value));
+        Assert.Equal(HttpStatusCode.Forbidden, refitByViewer.StatusCode);
+        // No wafers stored: the refit is refused with the reason (409), and nothing is proposed.
+        Assert.Equal(HttpStatusCode.Conflict, refitByEngineer.StatusCode);
+        Assert.Contains("Nothing to refit", await refitByEngineer.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+        Assert.Contains("ada-admin", audit, StringComparison.Ordinal);
+        Assert.Contains("spec edited", audit, StringComparison.Ordinal);
+        await app.StopAsync();
     }
 }
