@@ -18,9 +18,15 @@ public interface ISettingsStore
     /// <summary>Stores the specifications whose recipe has none yet, each with an audit entry; returns how many were added.</summary>
     Task<int> SeedQcSpecificationsAsync(IReadOnlyDictionary<string, QcSpecification> specifications, string actor, DateTimeOffset at, CancellationToken cancellationToken);
 
-    /// <summary>Replaces the recipe's specification and appends <paramref name="audit"/> in the same transaction.</summary>
+    /// <summary>
+    /// Replaces the recipe's specification and appends <paramref name="audit"/> in the same transaction. With
+    /// <paramref name="expectedUpdatedAt"/> the write happens only if the stored row is still the one read then, so
+    /// two people editing at once cannot silently undo each other's change.
+    /// </summary>
     /// <exception cref="KeyNotFoundException">The recipe has no stored specification.</exception>
-    Task SaveQcSpecificationAsync(string recipe, QcSpecification specification, string actor, AuditEntry audit, CancellationToken cancellationToken);
+    /// <exception cref="InvalidOperationException">The row changed since <paramref name="expectedUpdatedAt"/>; nothing was written.</exception>
+    Task SaveQcSpecificationAsync(string recipe, QcSpecification specification, string actor, AuditEntry audit, DateTimeOffset? expectedUpdatedAt,
+        CancellationToken cancellationToken);
 
     /// <summary>All stored reminder settings, ordered by rule id.</summary>
     Task<IReadOnlyList<ReminderSetting>> GetReminderSettingsAsync(CancellationToken cancellationToken);

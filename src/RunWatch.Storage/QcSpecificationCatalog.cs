@@ -38,11 +38,15 @@ public sealed class QcSpecificationCatalog(ISettingsStore store, IOptions<QcOpti
 
     /// <summary>
     /// Validates and stores a new specification for a recipe already stored, with an audit entry naming
-    /// <paramref name="actor"/> and <paramref name="change"/> (old → new). Nothing is written when it is invalid.
+    /// <paramref name="actor"/> and <paramref name="change"/> (old → new). Nothing is written when it is invalid, or,
+    /// with <paramref name="expectedUpdatedAt"/> (the <see cref="StoredQcSpecification.UpdatedAt"/> the edit started
+    /// from), when someone else changed the recipe's specification in between.
     /// </summary>
     /// <exception cref="ArgumentException">The specification is invalid; the message lists every problem.</exception>
     /// <exception cref="KeyNotFoundException">The recipe has no stored specification.</exception>
-    public async Task UpdateAsync(string recipe, QcSpecification specification, string actor, string change, CancellationToken cancellationToken)
+    /// <exception cref="InvalidOperationException">The stored specification changed since it was read.</exception>
+    public async Task UpdateAsync(string recipe, QcSpecification specification, string actor, string change, DateTimeOffset? expectedUpdatedAt,
+        CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(recipe);
         ArgumentNullException.ThrowIfNull(specification);
@@ -54,7 +58,7 @@ public sealed class QcSpecificationCatalog(ISettingsStore store, IOptions<QcOpti
         }
         await EnsureSeededAsync().WaitAsync(cancellationToken).ConfigureAwait(false);
         var audit = new AuditEntry(time.GetUtcNow(), actor, "spec edited", recipe.Length == 0 ? "default spec" : "spec " + recipe, AuditDetail.Json(change));
-        await store.SaveQcSpecificationAsync(recipe, specification, actor, audit, cancellationToken).ConfigureAwait(false);
+        await store.SaveQcSpecificationAsync(recipe, specification, actor, audit, expectedUpdatedAt, cancellationToken).ConfigureAwait(false);
     }
 
     private Task EnsureSeededAsync()

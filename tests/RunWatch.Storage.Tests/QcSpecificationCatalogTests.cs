@@ -34,7 +34,7 @@ public sealed class QcSpecificationCatalogTests
         var catalog = new QcSpecificationCatalog(db.Store, Options.Create(Config()), TimeProvider.System);
         var invalid = new QcSpecification { TargetMeanRadiusNm = 45, MeanRadiusToleranceNm = 10, MeanRadiusWarnToleranceNm = 12 };
 
-        var ex = await Assert.ThrowsAsync<ArgumentException>(() => catalog.UpdateAsync("nw-a", invalid, "ada-admin", "warn 12", CancellationToken.None));
+        var ex = await Assert.ThrowsAsync<ArgumentException>(() => catalog.UpdateAsync("nw-a", invalid, "ada-admin", "warn 12", null, CancellationToken.None));
 
         Assert.Contains("MeanRadiusWarnToleranceNm", ex.Message, StringComparison.Ordinal);
         Assert.Null((await catalog.SpecificationForAsync("nw-a", CancellationToken.None)).MeanRadiusWarnToleranceNm);
@@ -47,7 +47,7 @@ public sealed class QcSpecificationCatalogTests
         using var db = new TempDatabase();
         await db.Store.MigrateAsync(CancellationToken.None);
         var catalog = new QcSpecificationCatalog(db.Store, Options.Create(Config()), TimeProvider.System);
-        await catalog.UpdateAsync("nw-a", new QcSpecification { TargetMeanRadiusNm = 30, MeanRadiusToleranceNm = 3 }, "ada-admin", "30 ± 3 nm", CancellationToken.None);
+        await catalog.UpdateAsync("nw-a", new QcSpecification { TargetMeanRadiusNm = 30, MeanRadiusToleranceNm = 3 }, "ada-admin", "30 ± 3 nm", null, CancellationToken.None);
 
         var fresh = new QcSpecificationCatalog(db.Store, Options.Create(Config()), TimeProvider.System);
         var spec = await fresh.SpecificationForAsync("nw-a", CancellationToken.None);

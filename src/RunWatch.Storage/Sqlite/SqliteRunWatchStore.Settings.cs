@@ -79,7 +79,8 @@ public sealed partial class SqliteRunWatchStore : ISettingsStore
     }
 
     /// <inheritdoc />
-    public Task SaveQcSpecificationAsync(string recipe, QcSpecification specification, string actor, AuditEntry audit, CancellationToken cancellationToken)
+    public Task SaveQcSpecificationAsync(string recipe, QcSpecification specification, string actor, AuditEntry audit, DateTimeOffset? expectedUpdatedAt,
+        CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(recipe);
         ArgumentNullException.ThrowIfNull(specification);
@@ -90,14 +91,22 @@ public sealed partial class SqliteRunWatchStore : ISettingsStore
             using var transaction = connection.BeginTransaction();
             using var update = connection.CreateCommand();
             update.Transaction = transaction;
-            update.CommandText = "UPDATE qc_specifications SET spec_json = $json, updated_us = $t, updated_by = $by WHERE recipe = $recipe";
+            update.CommandText = "UPDATE qc_specifications SET spec_json = $json, updated_us = $t, updated_by = $by WHERE recipe = $recipe"
+                + (expectedUpdatedAt is null ? "" : " AND updated_us = $expected");
             update.Parameters.AddWithValue("$recipe", recipe);
+            update.Parameters.AddWithValue("$expected", expectedUpdatedAt is { } e ? UnixMicros.From(e) : DBNull.Value);
             update.Parameters.AddWithValue("$json", JsonSerializer.Serialize(specification, SettingsJsonContext.Default.QcSpecification));
             update.Parameters.AddWithValue("$t", UnixMicros.From(audit.At));
             update.Parameters.AddWithValue("$by", actor);
             if (update.ExecuteNonQuery() == 0)
             {
-                throw new KeyNotFoundException($"No stored QC specification for {SpecSubject(recipe)}.");
+                using var exists = connection.CreateCommand();
+                exists.Transaction = transaction;
+                exists.CommandText = "SELECT updated_by FROM qc_specifications WHERE recipe = $recipe";
+                exists.Parameters.AddWithValue("$recipe", recipe);
+                throw exists.ExecuteScalar() is string by
+                    ? new InvalidOperationException($"Not saved: the specification of {SpecSubject(recipe)} was changed meanwhile by {by}; reload it and edit again.")
+                    : new KeyNotFoundException($"No stored QC specification for {SpecSubject(recipe)}.");
             }
             InsertAudit(connection, transaction, audit);
             transaction.Commit();

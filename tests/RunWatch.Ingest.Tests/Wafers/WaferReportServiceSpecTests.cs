@@ -48,7 +48,7 @@ public sealed class WaferReportServiceSpecTests : IDisposable
         // Hand computation (DERIVED): mean 40 nm, |40 − 45| = 5 ≤ 10 → pass; 60 ≥ 50 wires → pass.
         WaferReportOutcome before = await reports.WriteAsync("W-SPEC-1", CancellationToken.None);
         await catalog.UpdateAsync("nw-spec", new QcSpecification { TargetMeanRadiusNm = 30, MeanRadiusToleranceNm = 5, MinWireCount = 50 },
-            "ada-admin", "mean radius 35…55 → 25…35 nm", CancellationToken.None);
+            "ada-admin", "mean radius 35…55 → 25…35 nm", null, CancellationToken.None);
         // Edited: |40 − 30| = 10 > 5 → fail.
         WaferReportOutcome after = await reports.WriteAsync("W-SPEC-2", CancellationToken.None);
 

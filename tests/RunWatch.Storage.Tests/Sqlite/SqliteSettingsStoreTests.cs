@@ -21,7 +21,7 @@ public sealed class SqliteSettingsStoreTests
         int seeded = await db.Store.SeedQcSpecificationsAsync(new Dictionary<string, QcSpecification> { ["nw-a"] = Spec(45, 10), [""] = Spec(50, 20) },
             "configuration", T0, CancellationToken.None);
         await db.Store.SaveQcSpecificationAsync("nw-a", Spec(40, 4), "ada-admin",
-            new AuditEntry(T0.AddMinutes(1), "ada-admin", "spec edited", "spec nw-a", AuditDetail.Json("target 45 → 40 nm")), CancellationToken.None);
+            new AuditEntry(T0.AddMinutes(1), "ada-admin", "spec edited", "spec nw-a", AuditDetail.Json("target 45 → 40 nm")), null, CancellationToken.None);
 
         // A second store on the same file, as after a restart.
         db.Store.Dispose();
@@ -58,10 +58,29 @@ public sealed class SqliteSettingsStoreTests
         await db.Store.MigrateAsync(CancellationToken.None);
 
         await Assert.ThrowsAsync<KeyNotFoundException>(() => db.Store.SaveQcSpecificationAsync("nope", Spec(40, 4), "ada-admin",
-            new AuditEntry(T0, "ada-admin", "spec edited", "spec nope", null), CancellationToken.None));
+            new AuditEntry(T0, "ada-admin", "spec edited", "spec nope", null), null, CancellationToken.None));
 
         Assert.Equal(0, db.Count("SELECT COUNT(*) FROM audit_entries"));
         Assert.Equal(0, db.Count("SELECT COUNT(*) FROM qc_specifications"));
+    }
+
+    [Fact]
+    public async Task SaveQcSpecificationAsync_RowChangedSinceRead_RefusedAndNothingWritten()
+    {
+        using var db = new TempDatabase();
+        await db.Store.MigrateAsync(CancellationToken.None);
+        await db.Store.SeedQcSpecificationsAsync(new Dictionary<string, QcSpecification> { ["nw-a"] = Spec(45, 10) }, "configuration", T0, CancellationToken.None);
+        DateTimeOffset read = (await db.Store.GetQcSpecificationsAsync(CancellationToken.None))[0].UpdatedAt;
+        // Another admin saves first.
+        await db.Store.SaveQcSpecificationAsync("nw-a", Spec(40, 4), "bea-admin", new AuditEntry(T0.AddMinutes(1), "bea-admin", "spec edited", "spec nw-a", null), read,
+            CancellationToken.None);
+
+        var ex = await Assert.ThrowsAsync<InvalidOperationException>(() => db.Store.SaveQcSpecificationAsync("nw-a", Spec(50, 2), "ada-admin",
+            new AuditEntry(T0.AddMinutes(2), "ada-admin", "spec edited", "spec nw-a", null), read, CancellationToken.None));
+
+        Assert.Contains("changed meanwhile by bea-admin", ex.Message, StringComparison.Ordinal);
+        Assert.Equal(40, (await db.Store.GetQcSpecificationsAsync(CancellationToken.None))[0].Specification.TargetMeanRadiusNm);
+        Assert.Equal(1, db.Count("SELECT COUNT(*) FROM audit_entries WHERE action = 'spec edited'"));
     }
 
     [Fact]

@@ -206,7 +206,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             ?? throw new KeyNotFoundException($"No spec '{spec.Name}'.");
         var updated = QcSpecRows.Apply(stored.Specification, spec);
         SpecEntry after = QcSpecRows.From(stored.Recipe, updated).First(r => r.Name == spec.Name);
-        await specifications.UpdateAsync(stored.Recipe, updated, user, QcSpecRows.Describe(before, after), cancellationToken).ConfigureAwait(false);
+        await specifications.UpdateAsync(stored.Recipe, updated, user, QcSpecRows.Describe(before, after), stored.UpdatedAt, cancellationToken).ConfigureAwait(false);
     }
 
     public Task RecordAuditAsync(AuditEntry entry, CancellationToken cancellationToken)
