@@ -20,6 +20,7 @@ public sealed class ProcessModelPlanner(IOptions<DashboardOptions> options, Stor
     private const int Fields = 4;
     private const int TradeOffFields = 2;
     private const int Seed = 1;
+    private const double MaxSitesPerField = 40_000;
     private static readonly double[] TradeOffFactors = [0.25, 0.5, 0.75, 1, 1.5, 2, 3, 4];
 
     public async Task<PlannerResult> PredictAsync(PlannerInput input, CancellationToken cancellationToken)
@@ -30,6 +31,10 @@ public sealed class ProcessModelPlanner(IOptions<DashboardOptions> options, Stor
         if (input.Profile.Count == 0 || !(growthS > 0) || !(density > 0) || !double.IsFinite(density) || input.Profile.Any(p => !double.IsFinite(p.TemperatureC) || !double.IsFinite(p.Minutes)))
         {
             throw new ArgumentException("Give a temperature profile of finite values, a positive growth time and a positive nucleation density.", nameof(input));
+        }
+        if (input.Profile.Any(p => p.TemperatureC <= PhysicalConstants.KelvinToCelsius(0) || p.Minutes < 0))
+        {
+            throw new ArgumentException("Profile temperatures must be above absolute zero and its times not negative.", nameof(input));
         }
         PlannerModel model = models is null
             ? StoreWaferData.DefaultPlannerModel(input.Process, options.Value.Planner)
@@ -88,8 +93,10 @@ public sealed class ProcessModelPlanner(IOptions<DashboardOptions> options, Stor
 
     private static List<double> Radii(PlannerModel model, double densityPerUm2, double lNm, int fields)
     {
-        // A field of at least 20 µm and six capture radii a side, so that unguarded wires remain at large L.
+        // A field of at least 20 µm and six capture radii a side, so that unguarded wires remain at large L; above
+        // 20 µm the side is bounded so that one field holds at most MaxSitesPerField sites and the page stays responsive.
         double sideNm = Math.Max(20_000, 6 * lNm);
+        sideNm = Math.Min(sideNm, Math.Max(20_000, Math.Sqrt(MaxSitesPerField / (densityPerUm2 * 1e-6))));
         var simulate = NucleationFieldSimulator.Create(densityPerUm2 * SquareMicrometresPerSquareCentimetre, lNm,
             new NucleationFieldOptions { FieldWidthNm = sideNm, FieldHeightNm = sideNm });
         var areas = new List<double>();

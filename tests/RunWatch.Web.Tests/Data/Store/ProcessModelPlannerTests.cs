@@ -118,5 +118,8 @@ public sealed class ProcessModelPlannerTests : IDisposable
         var ex = await Assert.ThrowsAsync<ArgumentException>(() => _planner.PredictAsync(Plan() with { NucleationDensityPerSquareMicrometre = 0 }, CancellationToken.None));
 
         Assert.Contains("positive nucleation density", ex.Message, StringComparison.Ordinal);
+        var cold = await Assert.ThrowsAsync<ArgumentException>(() => _planner.PredictAsync(Plan() with { Profile = [new ProfilePoint(0, -300), new ProfilePoint(30, 600)] },
+            CancellationToken.None));
+        Assert.Contains("above absolute zero", cold.Message, StringComparison.Ordinal);
     }
 }
