@@ -62,6 +62,9 @@ public interface IRunWatchStore
     /// <summary>Appends an audit entry.</summary>
     Task AppendAuditAsync(AuditEntry entry, CancellationToken cancellationToken);
 
+    /// <summary>The newest audit entries, newest first, at most <paramref name="maxCount"/>.</summary>
+    Task<IReadOnlyList<AuditEntry>> GetAuditAsync(int maxCount, CancellationToken cancellationToken);
+
     /// <summary>Deletes old rows in steps of bounded size.</summary>
     Task<PruneResult> PruneAsync(RetentionPolicy policy, CancellationToken cancellationToken);
 

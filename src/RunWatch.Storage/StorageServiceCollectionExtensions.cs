@@ -10,7 +10,8 @@ public static class StorageServiceCollectionExtensions
 {
     /// <summary>
     /// Binds and validates <see cref="StorageOptions"/> from the <c>Storage</c> section and registers
-    /// <see cref="IRunWatchStore"/> (SQLite) as a singleton. Call <see cref="IRunWatchStore.MigrateAsync"/> at start.
+    /// <see cref="IRunWatchStore"/> (SQLite) as a singleton, with its <see cref="ISettingsStore"/> and the
+    /// <see cref="QcSpecificationCatalog"/> over it. Call <see cref="IRunWatchStore.MigrateAsync"/> at start.
     /// </summary>
     public static IServiceCollection AddRunWatchStorage(this IServiceCollection services, IConfiguration configuration)
     {
@@ -25,6 +26,8 @@ public static class StorageServiceCollectionExtensions
         services.TryAddSingleton(TimeProvider.System);
         services.TryAddSingleton<SqliteRunWatchStore>();
         services.TryAddSingleton<IRunWatchStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+        services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+        services.TryAddSingleton<QcSpecificationCatalog>();
         return services;
     }
 }

@@ -38,6 +38,12 @@ public sealed class DashboardOptions
     /// <summary>Parameters of the planner's built-in model.</summary>
     public PlannerOptions Planner { get; set; } = new();
 
+    /// <summary>
+    /// Reminder thresholds that replace the built-in defaults: rule id → threshold in the rule's unit (docs/safety.md).
+    /// They are the defaults seeded into the store on first start; afterwards admins edit the stored value.
+    /// </summary>
+    public Dictionary<string, double> ReminderThresholds { get; set; } = new(StringComparer.Ordinal);
+
     /// <summary>Longest shelving an engineer may choose.</summary>
     /// <value>24 hours.</value>
     public TimeSpan MaxShelveDuration { get; set; } = TimeSpan.FromHours(24);

@@ -1,7 +1,7 @@
 namespace RunWatch.Web;
 
 /// <summary>
-/// Process parameters the planner uses when no process model is plugged in (section RunWatch:Dashboard:Planner).
+/// Process parameters the planner uses when the process has no accepted model (section RunWatch:Dashboard:Planner).
 /// The planner page shows them, so nobody mistakes them for a fitted model.
 /// </summary>
 public sealed class PlannerOptions
@@ -11,6 +11,9 @@ public sealed class PlannerOptions
 
     /// <summary>Activation energy Ea in eV.</summary>
     public double ActivationEnergyEv { get; set; } = 1.3;
+
+    /// <summary>Convention factor c of L = √(c·∫D dt) for the default diffusivity (1 for L = √(D·t)).</summary>
+    public double ConventionFactor { get; set; } = 1;
 
     /// <summary>Radius model intercept A in nm (r = A + B·Â).</summary>
     public double RadiusInterceptNm { get; set; } = 20.4;

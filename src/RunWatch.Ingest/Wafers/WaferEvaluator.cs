@@ -14,7 +14,7 @@ namespace RunWatch.Ingest.Wafers;
 internal static class WaferEvaluator
 {
     /// <summary>Wires that enter the statistics and the model: vertical and clear of the image edge and band.</summary>
-    private static bool Counts(FieldWire w) => w.Vertical && w.Interior;
+    internal static bool Counts(FieldWire w) => w.Vertical && w.Interior;
 
     public static WaferEvaluation Evaluate(WaferEvaluationInput input)
     {

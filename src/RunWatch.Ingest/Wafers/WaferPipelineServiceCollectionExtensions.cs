@@ -16,7 +16,8 @@ public static class WaferPipelineServiceCollectionExtensions
 {
     /// <summary>
     /// Binds and validates <see cref="IntakeOptions"/>, <see cref="WaferPipelineOptions"/> and <see cref="QcOptions"/>,
-    /// registers <see cref="IWaferStore"/> over the SQLite store, and adds the intake and analysis hosted services.
+    /// registers <see cref="IWaferStore"/> over the SQLite store, report writing (judged by the store's
+    /// <see cref="QcSpecificationCatalog"/>) and process calibration, and adds the intake and analysis hosted services.
     /// Call after the store is registered.
     /// </summary>
     public static IServiceCollection AddRunWatchWaferPipeline(this IServiceCollection services, IConfiguration configuration, bool runWorkers = true)
@@ -46,6 +47,7 @@ public static class WaferPipelineServiceCollectionExtensions
             sp.GetRequiredService<TimeProvider>(),
             sp.GetService<ILogger<FieldIntake>>()));
         services.TryAddSingleton<WaferReportService>();
+        services.TryAddSingleton<ProcessCalibrationService>();
         if (runWorkers)
         {
             services.TryAddSingleton<FieldIntakeService>();

@@ -31,17 +31,19 @@ public sealed class WaferReportService
     private readonly IWaferStore _wafers;
     private readonly WaferPipelineOptions _options;
     private readonly QcOptions _qc;
+    private readonly QcSpecificationCatalog? _specifications;
     private readonly string _reportsRoot;
     private readonly TimeProvider _time;
     private readonly ILogger _logger;
 
     public WaferReportService(IRunWatchStore store, IWaferStore wafers, IOptions<WaferPipelineOptions> options, IOptions<QcOptions> qc,
-        IOptions<StorageOptions> storage, TimeProvider time, ILogger<WaferReportService>? logger = null)
+        IOptions<StorageOptions> storage, TimeProvider time, ILogger<WaferReportService>? logger = null, QcSpecificationCatalog? specifications = null)
     {
         _store = store;
         _wafers = wafers;
         _options = options.Value;
         _qc = qc.Value;
+        _specifications = specifications;
         _reportsRoot = Path.GetFullPath(Path.Combine(storage.Value.DataDirectory, _options.ReportsFolder));
         _time = time;
         _logger = (ILogger?)logger ?? NullLogger.Instance;
@@ -90,6 +92,10 @@ public sealed class WaferReportService
         string process = record.Process ?? recipe;
         RadiusModelFit? accepted = await AcceptedModelAsync(process, cancellationToken).ConfigureAwait(false);
         RunExcursions excursions = RunExcursions.From(run);
+        // The stored specification (seeded from configuration, edited by admins) when the store keeps them.
+        QcSpecification specification = _specifications is null
+            ? _qc.SpecificationFor(recipe)
+            : await _specifications.SpecificationForAsync(recipe, cancellationToken).ConfigureAwait(false);
         var evaluation = WaferEvaluator.Evaluate(new WaferEvaluationInput
         {
             WaferId = wafer,
@@ -97,7 +103,7 @@ public sealed class WaferReportService
             Fields = fields,
             AcceptedModel = accepted,
             Thermal = new RunThermalFacts(run?.LEffNm, run?.Coverage, excursions.Count, excursions.MaxAbsRelativeLChange),
-            Specification = _qc.SpecificationFor(recipe),
+            Specification = specification,
             PredictionSeed = _options.PredictionSeed,
             PredictionFields = _options.PredictionFields,
             CaptureRadiusSearchMin = _options.CaptureRadiusSearchMin,

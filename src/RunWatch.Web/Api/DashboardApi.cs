@@ -72,7 +72,31 @@ public static class DashboardApi
             Guarded(() => c.AssignFieldAsync(fieldId, body.WaferId, user.Identity!.Name!, ct)));
         act.MapPost("/models/{process}/accept", (string process, ClaimsPrincipal user, IDashboardCommands c, CancellationToken ct) =>
             Guarded(() => c.AcceptModelAsync(process, user.Identity!.Name!, ct)));
+        act.MapPost("/models/{process}/refit", (string process, ClaimsPrincipal user, IDashboardCommands c, CancellationToken ct) =>
+            Guarded(() => c.RefitModelAsync(process, user.Identity!.Name!, ct)));
 
+        api.MapGet("/specs", (IDashboardQueries q, CancellationToken ct) => q.GetSpecsAsync(ct));
+        // An invalid edit is the caller's error (400), not a conflict.
+        api.MapPost("/specs", async (SpecEntry body, ClaimsPrincipal user, IDashboardCommands c, CancellationToken ct) =>
+        {
+            try
+            {
+                await c.UpdateSpecAsync(body, user.Identity!.Name!, ct);
+                return Results.NoContent();
+            }
+            catch (ArgumentException ex)
+            {
+                return Results.Problem(ex.Message, statusCode: StatusCodes.Status400BadRequest);
+            }
+            catch (KeyNotFoundException ex)
+            {
+                return Results.Problem(ex.Message, statusCode: StatusCodes.Status404NotFound);
+            }
+            catch (InvalidOperationException ex)
+            {
+                return Results.Problem(ex.Message, statusCode: StatusCodes.Status409Conflict);
+            }
+        }).RequireAuthorization(DashboardRoles.AdminPolicy);
         api.MapGet("/audit", (IDashboardQueries q, CancellationToken ct) => q.GetAuditAsync(500, ct)).RequireAuthorization(DashboardRoles.AdminPolicy);
         return endpoints;
     }

@@ -40,13 +40,17 @@ public static partial class DashboardHostingExtensions
         }
         var services = builder.Services;
         services.AddOptions<DashboardOptions>().Bind(builder.Configuration.GetSection(DashboardOptions.SectionName))
-            .ValidateDataAnnotations().ValidateOnStart();
+            .ValidateDataAnnotations()
+            .Validate(o => ReminderRuleSet.Check(DefaultReminders.All, o.ReminderThresholds).Count == 0,
+                "RunWatch:Dashboard:ReminderThresholds names an unknown rule, a rule without threshold, or a value that is not finite")
+            .ValidateOnStart();
         services.TryAddSingleton(TimeProvider.System);
         services.TryAddSingleton<DashboardClock>();
         services.TryAddSingleton<LiveUpdateHub>();
         services.TryAddSingleton<ITelemetryNotifier>(sp => sp.GetRequiredService<LiveUpdateHub>());
-        services.TryAddSingleton(sp => new ReminderRuleSet(DefaultReminders.All));
+        services.TryAddSingleton(sp => ReminderRuleSet.WithThresholds(DefaultReminders.All, sp.GetRequiredService<IOptions<DashboardOptions>>().Value.ReminderThresholds));
         services.TryAddSingleton<ReminderMonitor>();
+        services.TryAddSingleton<ReminderRuleEditor>();
         services.TryAddSingleton(sp =>
         {
             var directory = new UserDirectory();
@@ -85,8 +89,9 @@ public static partial class DashboardHostingExtensions
 
     /// <summary>
     /// Registers the dashboard's data over the daemon's store: <see cref="Data.Store.StoreDashboardData"/> for the
-    /// queries and commands (needs <see cref="Storage.IRunWatchStore"/> and <see cref="Storage.IAlertCommands"/>), and
-    /// the built-in planner with the parameters of RunWatch:Dashboard:Planner unless a planner is registered already.
+    /// queries and commands (needs <see cref="Storage.IRunWatchStore"/> and <see cref="Storage.IAlertCommands"/>), the
+    /// planner over the processes' accepted models (<see cref="Data.Store.ProcessModelPlanner"/>, falling back to
+    /// RunWatch:Dashboard:Planner) unless a planner is registered already, and the start-up load of stored settings.
     /// </summary>
     public static IServiceCollection AddRunWatchDashboardStoreData(this IServiceCollection services)
     {
@@ -94,11 +99,8 @@ public static partial class DashboardHostingExtensions
         services.TryAddSingleton<Data.Store.StoreDashboardData>();
         services.TryAddSingleton<Data.IDashboardQueries>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
         services.TryAddSingleton<Data.IDashboardCommands>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
-        services.TryAddSingleton<Data.IPlannerEngine>(sp =>
-        {
-            var p = sp.GetRequiredService<IOptions<DashboardOptions>>().Value.Planner;
-            return new Data.InMemory.ScenarioPlanner(p.D0CmSquaredPerSecond, p.ActivationEnergyEv, p.RadiusInterceptNm, p.RadiusSlopeNm);
-        });
+        services.TryAddSingleton<Data.IPlannerEngine, Data.Store.ProcessModelPlanner>();
+        services.AddHostedService<Data.Store.StoredSettingsStartupService>();
         return services;
     }
 

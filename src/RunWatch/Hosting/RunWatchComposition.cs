@@ -20,6 +20,7 @@ internal static class RunWatchComposition
         // Wafer screens read the pipeline's tables; registered before the dashboard's adapter takes them up.
         builder.Services.TryAddSingleton<RunWatch.Web.Data.Store.StoreWaferData>();
         builder.Services.TryAddSingleton<RunWatch.Web.Data.IFieldAssigner, PipelineFieldAssigner>();
+        builder.Services.TryAddSingleton<RunWatch.Web.Data.IModelRefitter, PipelineModelRefitter>();
         builder.Services.AddRunWatchDashboardStoreData();
         builder.Services.TryAddSingleton<DashboardLiveBridge>();
         builder.Services.AddSingleton<IIngestCommitListener>(sp => sp.GetRequiredService<DashboardLiveBridge>());

@@ -180,6 +180,8 @@ public sealed class IngestPipelineTests
 
         public Task AppendAuditAsync(AuditEntry entry, CancellationToken cancellationToken) => throw new NotSupportedException();
 
+        public Task<IReadOnlyList<AuditEntry>> GetAuditAsync(int maxCount, CancellationToken cancellationToken) => throw new NotSupportedException();
+
         public Task<PruneResult> PruneAsync(RetentionPolicy policy, CancellationToken cancellationToken) => throw new NotSupportedException();
 
         public Task MaintainAsync(CancellationToken cancellationToken) => throw new NotSupportedException();

@@ -37,6 +37,7 @@ internal sealed class DashboardTestContext : BunitContext
         Services.AddSingleton<DashboardClock>();
         Services.AddSingleton(new ReminderRuleSet(DefaultReminders.All));
         Services.AddSingleton<ReminderMonitor>();
+        Services.AddSingleton<ReminderRuleEditor>();
         Services.AddSingleton(new RunWatch.Web.Security.UserDirectory());
         Services.AddSingleton<IConfiguration>(new ConfigurationBuilder().AddInMemoryCollection(new Dictionary<string, string?>
         {

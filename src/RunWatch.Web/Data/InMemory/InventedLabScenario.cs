@@ -80,7 +80,7 @@ public static class InventedLabScenario
         data.AddAlert(new AlertView("A-0105", GrowingChamber, "R-2029", "Telemetry gap of 12 s", AlertSeverity.Warning,
             AlertState.Normal, now.AddDays(-1).AddHours(-1), now.AddDays(-1).AddHours(-1).AddSeconds(12), "demo-engineer", "gateway restart", null, null));
         data.AddSpec(new SpecEntry("mean radius", 30, 45, "nm"));
-        data.AddSpec(new SpecEntry("radius CV", null, 0.2, ""));
+        data.AddSpec(new SpecEntry("radius CV", null, 0.2, "fraction", Sides: SpecSides.Upper));
         data.AddSpec(new SpecEntry("density", 0.5, 3, "µm⁻²"));
     }
 

@@ -9,11 +9,13 @@ namespace RunWatch.Web.Data.Store;
 
 /// <summary>
 /// The dashboard's read model and actions over the daemon's store (<see cref="IRunWatchStore"/>) and alert
-/// commands (<see cref="IAlertCommands"/>): chambers, telemetry, runs, alerts and audit. Wafers, fields, reports,
-/// specs and process models are not in the store's interface yet; those queries report nothing stored.
+/// commands (<see cref="IAlertCommands"/>): chambers, telemetry, runs, alerts and the audit log; wafers, fields,
+/// reports and process models through <see cref="StoreWaferData"/>; QC specifications through the store's
+/// <see cref="QcSpecificationCatalog"/>; refits through the host's <see cref="IModelRefitter"/>. A part the host
+/// did not register reports nothing stored, and its actions answer with a plain "not available".
 /// </summary>
 public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands alerts, TimeProvider time, IOptions<DashboardOptions> options,
-    StoreWaferData? wafers = null, IFieldAssigner? assigner = null)
+    StoreWaferData? wafers = null, IFieldAssigner? assigner = null, QcSpecificationCatalog? specifications = null, IModelRefitter? refitter = null)
     : IDashboardQueries, IDashboardCommands
 {
     private const int MaxSamples = 2_000_000;
@@ -116,9 +118,25 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
     public Task<ProcessModelView?> GetProcessModelAsync(string process, CancellationToken cancellationToken) =>
         wafers?.GetProcessModelAsync(process, cancellationToken) ?? Task.FromResult<ProcessModelView?>(null);
 
-    public Task<IReadOnlyList<SpecEntry>> GetSpecsAsync(CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<SpecEntry>>([]);
+    public async Task<IReadOnlyList<SpecEntry>> GetSpecsAsync(CancellationToken cancellationToken)
+    {
+        if (specifications is null)
+        {
+            return [];
+        }
+        var rows = new List<SpecEntry>();
+        foreach (StoredQcSpecification stored in await specifications.ListAsync(cancellationToken).ConfigureAwait(false))
+        {
+            rows.AddRange(QcSpecRows.From(stored.Recipe, stored.Specification));
+        }
+        return rows;
+    }
 
-    public Task<IReadOnlyList<AuditEntry>> GetAuditAsync(int maxEntries, CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<AuditEntry>>([]);
+    public async Task<IReadOnlyList<AuditEntry>> GetAuditAsync(int maxEntries, CancellationToken cancellationToken)
+    {
+        var entries = await store.GetAuditAsync(maxEntries, cancellationToken).ConfigureAwait(false);
+        return entries.Select(e => new AuditEntry(e.At, e.Actor, e.Action, e.Subject ?? "", AuditDetail.Text(e.DetailJson))).ToList();
+    }
 
     public async Task AcknowledgeAlertAsync(string alertId, string user, string comment, CancellationToken cancellationToken)
     {
@@ -150,8 +168,16 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         await assigner.AssignAsync(ParseId(fieldId), waferId, user, cancellationToken).ConfigureAwait(false);
     }
 
-    public Task RefitModelAsync(string process, string user, CancellationToken cancellationToken) =>
-        throw new InvalidOperationException("Refitting is not available: the store holds no process models yet.");
+    public async Task RefitModelAsync(string process, string user, CancellationToken cancellationToken)
+    {
+        if (refitter is null)
+        {
+            throw new InvalidOperationException("Refitting is not available in this host (no wafer pipeline).");
+        }
+        ArgumentException.ThrowIfNullOrWhiteSpace(process);
+        string proposed = await refitter.RefitAsync(process, cancellationToken).ConfigureAwait(false);
+        await store.AppendAuditAsync(new StoredAudit(time.GetUtcNow(), user, "model refitted", process, AuditDetail.Json(proposed)), cancellationToken).ConfigureAwait(false);
+    }
 
     public async Task AcceptModelAsync(string process, string user, CancellationToken cancellationToken)
     {
@@ -159,12 +185,29 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         {
             throw new InvalidOperationException("Accepting a model is not available: this host has no wafer store.");
         }
-        await wafers.AcceptModelAsync(process, user, cancellationToken).ConfigureAwait(false);
-        await store.AppendAuditAsync(new StoredAudit(time.GetUtcNow(), user, "accept-model", process, null), cancellationToken).ConfigureAwait(false);
+        string accepted = await wafers.AcceptModelAsync(process, user, cancellationToken).ConfigureAwait(false);
+        await store.AppendAuditAsync(new StoredAudit(time.GetUtcNow(), user, "model accepted", process, AuditDetail.Json(accepted)), cancellationToken).ConfigureAwait(false);
     }
 
-    public Task UpdateSpecAsync(SpecEntry spec, string user, CancellationToken cancellationToken) =>
-        throw new InvalidOperationException("Specs are not stored yet.");
+    /// <summary>Validates the edited row against its rule and the whole specification, then stores it with an audit entry (old → new).</summary>
+    /// <exception cref="ArgumentException">The edit is invalid; nothing is changed.</exception>
+    /// <exception cref="KeyNotFoundException">No such recipe or rule.</exception>
+    public async Task UpdateSpecAsync(SpecEntry spec, string user, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        if (specifications is null)
+        {
+            throw new InvalidOperationException("Specs are not available in this host (no specification store).");
+        }
+        var all = await specifications.ListAsync(cancellationToken).ConfigureAwait(false);
+        StoredQcSpecification stored = all.FirstOrDefault(s => s.Recipe == spec.Recipe)
+            ?? throw new KeyNotFoundException(spec.Recipe.Length == 0 ? "No default specification is stored." : $"No specification for recipe '{spec.Recipe}'.");
+        SpecEntry before = QcSpecRows.From(stored.Recipe, stored.Specification).FirstOrDefault(r => r.Name == spec.Name)
+            ?? throw new KeyNotFoundException($"No spec '{spec.Name}'.");
+        var updated = QcSpecRows.Apply(stored.Specification, spec);
+        SpecEntry after = QcSpecRows.From(stored.Recipe, updated).First(r => r.Name == spec.Name);
+        await specifications.UpdateAsync(stored.Recipe, updated, user, QcSpecRows.Describe(before, after), stored.UpdatedAt, cancellationToken).ConfigureAwait(false);
+    }
 
     public Task RecordAuditAsync(AuditEntry entry, CancellationToken cancellationToken)
     {

@@ -8,12 +8,8 @@ namespace RunWatch.Web.Data.Store;
 /// Wafer, field, report and process-model reads over the store's wafer tables and the report files the pipeline
 /// wrote (their JSON summary and wire CSV), for <see cref="StoreDashboardData"/>.
 /// </summary>
-public sealed class StoreWaferData(IWaferStore wafers)
+public sealed partial class StoreWaferData(IWaferStore wafers)
 {
-    private const string RadiusModel = "radius";
-    private const string CaptureRadiusModel = "capture-radius";
-    private const string ArrheniusModel = "arrhenius";
-
     public async Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken)
     {
         WaferRecord? wafer = await wafers.GetWaferAsync(waferId, cancellationToken).ConfigureAwait(false);
@@ -114,69 +110,6 @@ public sealed class StoreWaferData(IWaferStore wafers)
             }
         }
         return [.. processes];
-    }
-
-    public async Task<ProcessModelView?> GetProcessModelAsync(string process, CancellationToken cancellationToken)
-    {
-        var radius = await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false);
-        if (radius.Count == 0)
-        {
-            return null;
-        }
-        ModelFitRecord? accepted = radius.FirstOrDefault(f => f.AcceptedAt is not null);
-        ModelFitRecord? candidate = radius.FirstOrDefault(f => f.AcceptedAt is null && (accepted is null || f.Id > accepted.Id));
-        RadiusFit current = ToRadiusFit(accepted ?? radius[0]);
-        var arrheniusFits = await wafers.GetModelFitsAsync(process, ArrheniusModel, 1, cancellationToken).ConfigureAwait(false);
-        ArrheniusFit arrhenius = arrheniusFits.Count > 0 ? ToArrhenius(arrheniusFits[0]) : new ArrheniusFit(double.NaN, double.NaN, double.NaN);
-        var points = new List<ArrheniusPoint>();
-        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, CaptureRadiusModel, 500, cancellationToken).ConfigureAwait(false))
-        {
-            using var doc = JsonDocument.Parse(r.ParamsJson);
-            JsonElement e = doc.RootElement;
-            double l = Get(e, "captureRadiusNm") * 1e-7;
-            double t = Get(e, "growthDurationS");
-            double c = Get(e, "conventionFactor");
-            double tK = Get(e, "effectiveTemperatureK");
-            if (l > 0 && t > 0 && c > 0)
-            {
-                points.Add(new ArrheniusPoint(tK, l * l / (c * t)));
-            }
-        }
-        return new ProcessModelView(process, current, candidate is null || accepted is null ? null : ToRadiusFit(candidate), arrhenius, [], points,
-            accepted?.AcceptedBy, accepted?.AcceptedAt);
-    }
-
-    /// <summary>Accepts the newest proposed radius model of the process in the name of <paramref name="user"/>.</summary>
-    public async Task AcceptModelAsync(string process, string user, CancellationToken cancellationToken)
-    {
-        var radius = await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false);
-        ModelFitRecord proposed = radius.FirstOrDefault(f => f.AcceptedAt is null)
-            ?? throw new InvalidOperationException($"process {process} has no proposed radius model to accept");
-        await wafers.AcceptModelFitAsync(proposed.Id, user, cancellationToken).ConfigureAwait(false);
-    }
-
-    private static RadiusFit ToRadiusFit(ModelFitRecord r)
-    {
-        using var doc = JsonDocument.Parse(r.ParamsJson);
-        JsonElement e = doc.RootElement;
-        var form = e.TryGetProperty("kind", out JsonElement k) && k.GetString() == "PowerLaw" ? RadiusModelForm.PowerLaw : RadiusModelForm.Linear;
-        double a = double.NaN;
-        double b = double.NaN;
-        if (e.TryGetProperty("parameters", out JsonElement ps) && ps.ValueKind == JsonValueKind.Array && ps.GetArrayLength() >= 2)
-        {
-            a = Get(ps[0], "value");
-            b = Get(ps[1], "value");
-        }
-        return new RadiusFit(form, a, b, r.RSquared ?? double.NaN, r.RmseNm ?? double.NaN, (int)Get(e, "count"), r.FittedAt);
-    }
-
-    private static ArrheniusFit ToArrhenius(ModelFitRecord r)
-    {
-        using var doc = JsonDocument.Parse(r.ParamsJson);
-        JsonElement e = doc.RootElement;
-        double ea = e.TryGetProperty("activationEnergy", out JsonElement ae) ? Get(ae, "value") : double.NaN;
-        double d0 = e.TryGetProperty("prefactor", out JsonElement pf) ? Get(pf, "value") : double.NaN;
-        return new ArrheniusFit(d0, ea, r.RSquared ?? double.NaN);
     }
 
     private static (WaferStatistics?, VerdictView?) ReadSummary(string json, DateTimeOffset at)
