@@ -2,18 +2,18 @@ using System.Diagnostics;
 using System.Text;
 using System.Text.Json;
 using RunWatch.Testing.Documents;
-using RunWatch.Testing.Mqtt;
 using Xunit;
 
 namespace RunWatch.Tests.Demo;
 
 /// <summary>
 /// The whole job headless, as a newcomer runs it: <c>runwatch demo</c> in its own process with the embedded broker
-/// and SQLite. Invented telemetry and events go in over MQTT, invented SEM fields are dropped after each run, and
-/// every demo wafer must come out with report files and a verdict; the PDF is read back with pdftotext
-/// (poppler-utils, an independent reader).
+/// and SQLite (shared with the browser tests through <see cref="DemoFixture"/>). Invented telemetry and events go in
+/// over MQTT, invented SEM fields are dropped after each run, and every demo wafer must come out with report files
+/// and a verdict; the PDF is read back with pdftotext (poppler-utils, an independent reader).
 /// </summary>
-public sealed class DemoEndToEndTests : IDisposable
+[Collection(DemoCollection.Name)]
+public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "rw-demo-" + Guid.NewGuid().ToString("N"));
 
@@ -26,18 +26,16 @@ public sealed class DemoEndToEndTests : IDisposable
     }
 
     [Fact]
-    public void Demo_FreshFolder_EveryWaferGetsReportWithVerdict()
+    public async Task Demo_FreshFolder_EveryWaferGetsReportWithVerdict()
     {
-        int brokerPort = FreePort.Next();
-        int httpPort = FreePort.Next();
-        var (exitCode, output) = Run(TimeSpan.FromMinutes(8), "demo", "--data-folder", _folder, "--exit-when-done",
-            $"--Broker:Port={brokerPort}", $"--Urls=http://127.0.0.1:{httpPort}");
+        await demo.WaitAllReportedAsync();
+        string output = demo.Output;
 
-        Assert.True(exitCode == 0, "demo failed:\n" + output);
+        Assert.False(demo.HasExited, "the demo should keep running after its last report:\n" + output);
         Assert.Contains("invented", output, StringComparison.Ordinal);
         foreach (string wafer in new[] { "W-DEMO-01-A", "W-DEMO-01-B", "W-DEMO-02-A" })
         {
-            string folder = Path.Combine(_folder, "reports", wafer);
+            string folder = Path.Combine(demo.DataFolder, "reports", wafer);
             string pdf = Path.Combine(folder, wafer + ".pdf");
             Assert.True(File.Exists(pdf), $"no PDF for {wafer}:\n{output}");
             Assert.True(File.Exists(Path.Combine(folder, wafer + ".html")));
@@ -54,7 +52,7 @@ public sealed class DemoEndToEndTests : IDisposable
         // The first wafer proposes the process's radius model, the demo user accepts it, and the later wafer is
         // judged against it: its bias rule is measured, not skipped.
         Assert.Contains("accepted by 'demo-engineer'", output, StringComparison.Ordinal);
-        using var later = JsonDocument.Parse(File.ReadAllText(Path.Combine(_folder, "reports", "W-DEMO-02-A", "W-DEMO-02-A.json")));
+        using var later = JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.DataFolder, "reports", "W-DEMO-02-A", "W-DEMO-02-A.json")));
         JsonElement bias = later.RootElement.GetProperty("verdict").GetProperty("rules").EnumerateArray()
             .Single(r => r.GetProperty("rule").GetString() == "prediction-bias");
         Assert.Equal(JsonValueKind.Number, bias.GetProperty("measured").ValueKind);
@@ -74,7 +72,6 @@ public sealed class DemoEndToEndTests : IDisposable
         Assert.Contains("not a RunWatch demo folder", output, StringComparison.Ordinal);
         Assert.Equal("not demo data", File.ReadAllText(precious));
     }
-
 
     private static (int ExitCode, string Output) Run(TimeSpan timeout, params string[] args)
     {
