@@ -45,6 +45,10 @@ internal static class DemoCommand
             Console.WriteLine($"  data folder   {folder}");
             Console.WriteLine($"  MQTT broker   127.0.0.1:{builder.Configuration.GetValue("Broker:Port", DemoSettings.BrokerPort)} (embedded)");
             await app.StartAsync(cancellationToken).ConfigureAwait(false);
+            // SIGTERM reaches the host's lifetime (which stops the application) but not the command line's token; a
+            // demo stopped with kill or by a service manager must end as Ctrl+C does.
+            using var stopping = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken, app.Lifetime.ApplicationStopping);
+            cancellationToken = stopping.Token;
             string url = app.Urls.FirstOrDefault() ?? "http://127.0.0.1:5080";
             Console.WriteLine($"  dashboard     {url}   (log in with a demo user below)");
             foreach (var user in demoUsers)

@@ -2,6 +2,7 @@ using System.Diagnostics;
 using System.Text;
 using System.Text.Json;
 using RunWatch.Testing.Documents;
+using RunWatch.Testing.Mqtt;
 using Xunit;
 
 namespace RunWatch.Tests.Demo;
@@ -71,6 +72,54 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
         Assert.Equal(2, exitCode);
         Assert.Contains("not a RunWatch demo folder", output, StringComparison.Ordinal);
         Assert.Equal("not demo data", File.ReadAllText(precious));
+    }
+
+    [Theory]
+    [InlineData("TERM")]
+    [InlineData("INT")]
+    public async Task Demo_SignalWhilePlaying_StopsCleanly(string signal)
+    {
+        var psi = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        foreach (string a in new[]
+        {
+            Path.Combine(AppContext.BaseDirectory, "runwatch.dll"), "demo", "--data-folder", _folder,
+            $"--Broker:Port={FreePort.Next()}", $"--Urls=http://127.0.0.1:{FreePort.Next()}",
+        })
+        {
+            psi.ArgumentList.Add(a);
+        }
+        var output = new StringBuilder();
+        using var process = new Process { StartInfo = psi };
+        process.OutputDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
+        process.ErrorDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
+        process.Start();
+        process.BeginOutputReadLine();
+        process.BeginErrorReadLine();
+        string Text() { lock (output) { return output.ToString(); } }
+        var deadline = DateTime.UtcNow.AddMinutes(1);
+        while (!Text().Contains("[demo] run R-DEMO-01", StringComparison.Ordinal) && !process.HasExited && DateTime.UtcNow < deadline)
+        {
+            await Task.Delay(100);
+        }
+        Assert.False(process.HasExited, "the demo ended before playing:\n" + Text());
+
+        // kill(1) as a service manager or a terminal sends it; the demo must stop as it does on Ctrl+C.
+        using (var kill = Process.Start("kill", ["-" + signal, process.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)]))
+        {
+            await kill.WaitForExitAsync();
+        }
+        using var bound = new CancellationTokenSource(TimeSpan.FromSeconds(30));
+        try
+        {
+            await process.WaitForExitAsync(bound.Token);
+        }
+        catch (OperationCanceledException)
+        {
+            process.Kill(entireProcessTree: true);
+            Assert.Fail($"SIG{signal} did not stop the demo within 30 s:\n" + Text());
+        }
+        process.WaitForExit();
+        Assert.Contains("[demo] stopped.", Text(), StringComparison.Ordinal);
     }
 
     private static (int ExitCode, string Output) Run(TimeSpan timeout, params string[] args)
