@@ -74,6 +74,8 @@ public sealed partial class DemoDashboardBrowserTests(DemoFixture demo, ITestOut
         output.WriteLine($"publish {before:F1} °C -> {expected}: PUBACK after {acked} ms, value on screen {clock.ElapsedMilliseconds} ms after the publish (pushed, no reload; goal <= 1000 ms)");
 
         Assert.True(await page.EvaluateAsync<bool>("() => window.runwatchNoReload === true"), "the page was reloaded");
+        // Times are the lab's local time with its offset (the demo runs with DemoFixture.LabTimeZone).
+        await Assertions.Expect(page.Locator($"[data-chamber={Chamber}] .when")).ToContainTextAsync(LabOffset());
         await demo.ScreenshotAsync(page, "overview-after-publish");
         await client.DisconnectAsync();
         await page.CloseAsync();
@@ -233,6 +235,9 @@ public sealed partial class DemoDashboardBrowserTests(DemoFixture demo, ITestOut
 
     [GeneratedRegex(@"^(-?\d+\.\d) °C$")]
     private static partial Regex CelsiusText();
+
+    [GeneratedRegex(@"UTC\+0[12]:00")]
+    private static partial Regex LabOffset();
 
     [GeneratedRegex("overlay=true")]
     private static partial Regex OverlayOn();

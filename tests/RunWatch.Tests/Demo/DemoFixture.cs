@@ -20,6 +20,9 @@ public sealed partial class DemoFixture : IAsyncLifetime
     /// <summary>What the demo prints once every demo wafer has its report.</summary>
     public const string AllReportedLine = "[demo] all demo wafers reported";
 
+    /// <summary>The dashboard's time zone in the demo under test (UTC+01:00 in winter, +02:00 in summer).</summary>
+    public const string LabTimeZone = "Europe/Berlin";
+
     private readonly StringBuilder _output = new();
     private readonly SemaphoreSlim _browserGate = new(1, 1);
     private Process _process = default!;
@@ -62,6 +65,8 @@ public sealed partial class DemoFixture : IAsyncLifetime
         {
             Path.Combine(AppContext.BaseDirectory, "runwatch.dll"), "demo", "--data-folder", DataFolder,
             "--Broker:Port=" + BrokerPort.ToString(CultureInfo.InvariantCulture), "--Urls=http://127.0.0.1:" + httpPort.ToString(CultureInfo.InvariantCulture),
+            // A lab zone with an offset, so that the screens are seen to show local time with its UTC offset.
+            "--RunWatch:Dashboard:TimeZone=" + LabTimeZone,
         })
         {
             psi.ArgumentList.Add(a);
