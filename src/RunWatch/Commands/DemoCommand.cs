@@ -74,9 +74,10 @@ internal static class DemoCommand
                 await app.StopAsync(CancellationToken.None).ConfigureAwait(false);
                 return 1;
             }
-            catch (OperationCanceledException) when (cancellationToken.IsCancellationRequested)
+            catch (Exception) when (cancellationToken.IsCancellationRequested)
             {
-                // Ctrl+C during the demo: stop cleanly below.
+                // Ctrl+C or SIGTERM during the demo: the host stops the embedded broker too, so the publisher may fail
+                // with a broken connection rather than a cancellation. Either way, stop cleanly below.
             }
             if (!parseResult.GetValue(exitWhenDone) && !cancellationToken.IsCancellationRequested)
             {

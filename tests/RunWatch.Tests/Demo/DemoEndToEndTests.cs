@@ -119,7 +119,7 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
             Assert.Fail($"SIG{signal} did not stop the demo within 30 s:\n" + Text());
         }
         process.WaitForExit();
-        Assert.Contains("[demo] stopped.", Text(), StringComparison.Ordinal);
+        Assert.True(Text().Contains("[demo] stopped.", StringComparison.Ordinal), $"SIG{signal} while playing did not end in '[demo] stopped.' (exit {process.ExitCode}):\n" + Text());
     }
 
     private static (int ExitCode, string Output) Run(TimeSpan timeout, params string[] args)
