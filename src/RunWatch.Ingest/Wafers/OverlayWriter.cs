@@ -8,7 +8,7 @@ internal static class OverlayWriter
     public static async Task WriteAsync(FieldAnalysis analysis, FieldRaster raster, string path, CancellationToken cancellationToken)
     {
         Directory.CreateDirectory(Path.GetDirectoryName(path)!);
-        byte[] png = await Task.Run(() => Imaging.Overlay.OverlayRenderer.Render(analysis, raster), cancellationToken).ConfigureAwait(false);
-        await File.WriteAllBytesAsync(path, png, cancellationToken).ConfigureAwait(false);
+        // Write encodes the rendered pixels as PNG; the renderer's own output is raw RGB, which no viewer can show.
+        await Task.Run(() => Imaging.Overlay.OverlayRenderer.Write(analysis, raster, path), cancellationToken).ConfigureAwait(false);
     }
 }

@@ -82,7 +82,12 @@ public static partial class DashboardHostingExtensions
             .AddPolicy(DashboardRoles.CanActPolicy, p => p.RequireRole(DashboardRoles.Engineer, DashboardRoles.Admin))
             .AddPolicy(DashboardRoles.AdminPolicy, p => p.RequireRole(DashboardRoles.Admin));
         services.AddAntiforgery();
-        services.ConfigureHttpJsonOptions(o => o.SerializerOptions.Converters.Add(new JsonStringEnumConverter()));
+        services.ConfigureHttpJsonOptions(o =>
+        {
+            o.SerializerOptions.Converters.Add(new JsonStringEnumConverter());
+            // A figure that was not measured is NaN; without this one such value turns the whole answer into a 500.
+            o.SerializerOptions.NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals;
+        });
         services.AddOpenApi("v1");
         return builder;
     }

@@ -45,6 +45,10 @@ internal static class DemoCommand
             Console.WriteLine($"  data folder   {folder}");
             Console.WriteLine($"  MQTT broker   127.0.0.1:{builder.Configuration.GetValue("Broker:Port", DemoSettings.BrokerPort)} (embedded)");
             await app.StartAsync(cancellationToken).ConfigureAwait(false);
+            // SIGTERM reaches the host's lifetime (which stops the application) but not the command line's token; a
+            // demo stopped with kill or by a service manager must end as Ctrl+C does.
+            using var stopping = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken, app.Lifetime.ApplicationStopping);
+            cancellationToken = stopping.Token;
             string url = app.Urls.FirstOrDefault() ?? "http://127.0.0.1:5080";
             Console.WriteLine($"  dashboard     {url}   (log in with a demo user below)");
             foreach (var user in demoUsers)
@@ -70,9 +74,10 @@ internal static class DemoCommand
                 await app.StopAsync(CancellationToken.None).ConfigureAwait(false);
                 return 1;
             }
-            catch (OperationCanceledException) when (cancellationToken.IsCancellationRequested)
+            catch (Exception) when (cancellationToken.IsCancellationRequested)
             {
-                // Ctrl+C during the demo: stop cleanly below.
+                // Ctrl+C or SIGTERM during the demo: the host stops the embedded broker too, so the publisher may fail
+                // with a broken connection rather than a cancellation. Either way, stop cleanly below.
             }
             if (!parseResult.GetValue(exitWhenDone) && !cancellationToken.IsCancellationRequested)
             {

@@ -30,6 +30,11 @@ internal static class DemoSettings
 
     public const double EaEv = 1.3;
 
+    /// <summary>Deviation from setpoint that raises a warning (and, below, an alarm) on the demo chamber, K.</summary>
+    public const double WarningBandK = 5;
+
+    public const double AlarmBandK = 15;
+
     public static IReadOnlyList<DemoRunPlan> Runs { get; } =
     [
         new("R-DEMO-01", ["W-DEMO-01-A", "W-DEMO-01-B"], 610, 101),
@@ -48,6 +53,9 @@ internal static class DemoSettings
         "--Intake:RescanInterval=00:00:01",
         "--WaferPipeline:DefaultProcess=nw-demo",
         "--Serilog:MinimumLevel:Default=Warning",
+        // The dashboard draws its bands from its own settings; keep them equal to the demo chamber's alert bands.
+        "--RunWatch:Dashboard:WarningBandK=" + WarningBandK.ToString(CultureInfo.InvariantCulture),
+        "--RunWatch:Dashboard:AlarmBandK=" + AlarmBandK.ToString(CultureInfo.InvariantCulture),
         "--Serilog:WriteTo:1:Args:path=" + Path.Combine(dataFolder, "logs", "runwatch-.log"),
         "--Qc:Recipes:nw-demo:TargetMeanRadiusNm=30",
         "--Qc:Recipes:nw-demo:MeanRadiusToleranceNm=8",
@@ -86,7 +94,7 @@ internal static class DemoSettings
               "Process": { "D0CmSqPerS": {{D0CmSqPerS * Acceleration}}, "EaEv": {{EaEv}} },
               "DiffusionLength": { "ConventionFactor": 1.0, "MaxGap": "00:00:02" },
               "Excursions": {
-                "WarningBandK": 5, "AlarmBandK": 15, "HysteresisK": 1, "MinimumDuration": "00:00:00.500",
+                "WarningBandK": {{WarningBandK}}, "AlarmBandK": {{AlarmBandK}}, "HysteresisK": 1, "MinimumDuration": "00:00:00.500",
                 "HighLimitC": 700, "LowLimitC": 150, "MaxRateKPerS": 300, "RateWindow": "00:00:01",
                 "StaleAfter": "00:00:10", "FlatlineWindow": "00:05:00", "FlatlineEpsilonK": 0.01, "MaxGap": "00:00:02"
               }

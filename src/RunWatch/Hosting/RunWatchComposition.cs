@@ -17,6 +17,11 @@ internal static class RunWatchComposition
         builder.AddRunWatchDaemon(args);
         builder.Services.AddRunWatchWaferPipeline(builder.Configuration);
         builder.AddRunWatchDashboard();
+        // Outside Development, ASP.NET Core serves static web assets only from a published wwwroot: a build run in
+        // place (`dotnet run --project src/RunWatch -- demo`) would answer 200 with empty CSS and blazor.web.js, and
+        // no page would become interactive. The manifest next to the build maps them; a published app has none, so
+        // this is a no-op there.
+        builder.WebHost.UseStaticWebAssets();
         // Wafer screens read the pipeline's tables; registered before the dashboard's adapter takes them up.
         builder.Services.TryAddSingleton<RunWatch.Web.Data.Store.StoreWaferData>();
         builder.Services.TryAddSingleton<RunWatch.Web.Data.IFieldAssigner, PipelineFieldAssigner>();

@@ -23,16 +23,7 @@ public sealed class BrowserFixture : IAsyncLifetime
         Host = await DashboardTestHost.StartAsync();
         _playwright = await Playwright.CreateAsync();
         _profile = Directory.CreateTempSubdirectory("runwatch-chromium-").FullName;
-        // A persistent context is how Playwright takes a fresh --user-data-dir of our own.
-        Context = await _playwright.Chromium.LaunchPersistentContextAsync(_profile, new BrowserTypeLaunchPersistentContextOptions
-        {
-            ExecutablePath = "/usr/bin/chromium",
-            Headless = true,
-            Args = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-            ViewportSize = new ViewportSize { Width = 1440, Height = 1000 },
-            AcceptDownloads = true,
-            TimezoneId = "Europe/Berlin",
-        });
+        Context = await HeadlessChromium.LaunchAsync(_playwright, _profile);
         Browser = Context.Browser!;
     }
 

@@ -9,11 +9,12 @@ namespace RunWatch.Tests.Demo;
 
 /// <summary>
 /// The whole job headless, as a newcomer runs it: <c>runwatch demo</c> in its own process with the embedded broker
-/// and SQLite. Invented telemetry and events go in over MQTT, invented SEM fields are dropped after each run, and
-/// every demo wafer must come out with report files and a verdict; the PDF is read back with pdftotext
-/// (poppler-utils, an independent reader).
+/// and SQLite (shared with the browser tests through <see cref="DemoFixture"/>). Invented telemetry and events go in
+/// over MQTT, invented SEM fields are dropped after each run, and every demo wafer must come out with report files
+/// and a verdict; the PDF is read back with pdftotext (poppler-utils, an independent reader).
 /// </summary>
-public sealed class DemoEndToEndTests : IDisposable
+[Collection(DemoCollection.Name)]
+public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "rw-demo-" + Guid.NewGuid().ToString("N"));
 
@@ -26,18 +27,16 @@ public sealed class DemoEndToEndTests : IDisposable
     }
 
     [Fact]
-    public void Demo_FreshFolder_EveryWaferGetsReportWithVerdict()
+    public async Task Demo_FreshFolder_EveryWaferGetsReportWithVerdict()
     {
-        int brokerPort = FreePort.Next();
-        int httpPort = FreePort.Next();
-        var (exitCode, output) = Run(TimeSpan.FromMinutes(8), "demo", "--data-folder", _folder, "--exit-when-done",
-            $"--Broker:Port={brokerPort}", $"--Urls=http://127.0.0.1:{httpPort}");
+        await demo.WaitAllReportedAsync();
+        string output = demo.Output;
 
-        Assert.True(exitCode == 0, "demo failed:\n" + output);
+        Assert.False(demo.HasExited, "the demo should keep running after its last report:\n" + output);
         Assert.Contains("invented", output, StringComparison.Ordinal);
         foreach (string wafer in new[] { "W-DEMO-01-A", "W-DEMO-01-B", "W-DEMO-02-A" })
         {
-            string folder = Path.Combine(_folder, "reports", wafer);
+            string folder = Path.Combine(demo.DataFolder, "reports", wafer);
             string pdf = Path.Combine(folder, wafer + ".pdf");
             Assert.True(File.Exists(pdf), $"no PDF for {wafer}:\n{output}");
             Assert.True(File.Exists(Path.Combine(folder, wafer + ".html")));
@@ -54,7 +53,7 @@ public sealed class DemoEndToEndTests : IDisposable
         // The first wafer proposes the process's radius model, the demo user accepts it, and the later wafer is
         // judged against it: its bias rule is measured, not skipped.
         Assert.Contains("accepted by 'demo-engineer'", output, StringComparison.Ordinal);
-        using var later = JsonDocument.Parse(File.ReadAllText(Path.Combine(_folder, "reports", "W-DEMO-02-A", "W-DEMO-02-A.json")));
+        using var later = JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.DataFolder, "reports", "W-DEMO-02-A", "W-DEMO-02-A.json")));
         JsonElement bias = later.RootElement.GetProperty("verdict").GetProperty("rules").EnumerateArray()
             .Single(r => r.GetProperty("rule").GetString() == "prediction-bias");
         Assert.Equal(JsonValueKind.Number, bias.GetProperty("measured").ValueKind);
@@ -75,6 +74,53 @@ public sealed class DemoEndToEndTests : IDisposable
         Assert.Equal("not demo data", File.ReadAllText(precious));
     }
 
+    [Theory]
+    [InlineData("TERM")]
+    [InlineData("INT")]
+    public async Task Demo_SignalWhilePlaying_StopsCleanly(string signal)
+    {
+        var psi = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        foreach (string a in new[]
+        {
+            Path.Combine(AppContext.BaseDirectory, "runwatch.dll"), "demo", "--data-folder", _folder,
+            $"--Broker:Port={FreePort.Next()}", $"--Urls=http://127.0.0.1:{FreePort.Next()}",
+        })
+        {
+            psi.ArgumentList.Add(a);
+        }
+        var output = new StringBuilder();
+        using var process = new Process { StartInfo = psi };
+        process.OutputDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
+        process.ErrorDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
+        process.Start();
+        process.BeginOutputReadLine();
+        process.BeginErrorReadLine();
+        string Text() { lock (output) { return output.ToString(); } }
+        var deadline = DateTime.UtcNow.AddMinutes(1);
+        while (!Text().Contains("[demo] run R-DEMO-01", StringComparison.Ordinal) && !process.HasExited && DateTime.UtcNow < deadline)
+        {
+            await Task.Delay(100);
+        }
+        Assert.False(process.HasExited, "the demo ended before playing:\n" + Text());
+
+        // kill(1) as a service manager or a terminal sends it; the demo must stop as it does on Ctrl+C.
+        using (var kill = Process.Start("kill", ["-" + signal, process.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)]))
+        {
+            await kill.WaitForExitAsync();
+        }
+        using var bound = new CancellationTokenSource(TimeSpan.FromSeconds(30));
+        try
+        {
+            await process.WaitForExitAsync(bound.Token);
+        }
+        catch (OperationCanceledException)
+        {
+            process.Kill(entireProcessTree: true);
+            Assert.Fail($"SIG{signal} did not stop the demo within 30 s:\n" + Text());
+        }
+        process.WaitForExit();
+        Assert.True(Text().Contains("[demo] stopped.", StringComparison.Ordinal), $"SIG{signal} while playing did not end in '[demo] stopped.' (exit {process.ExitCode}):\n" + Text());
+    }
 
     private static (int ExitCode, string Output) Run(TimeSpan timeout, params string[] args)
     {

@@ -7,4 +7,5 @@ namespace RunWatch.Web.Components.Charts;
 /// <param name="Y0">Lower value, or null for the whole height.</param>
 /// <param name="Y1">Upper value, or null.</param>
 /// <param name="Fill">Fill colour with alpha.</param>
-public sealed record ChartBand(string Label, string? X0, string? X1, double? Y0, double? Y1, string Fill);
+/// <param name="LabelAtBottom">Draw the label at the band's foot, so a long band's label does not collide with the short bands over it.</param>
+public sealed record ChartBand(string Label, string? X0, string? X1, double? Y0, double? Y1, string Fill, bool LabelAtBottom = false);

@@ -11,8 +11,9 @@ public static class Units
 
     public static string Nm(double value) => double.IsFinite(value) ? value.ToString("F1", CultureInfo.InvariantCulture) + " nm" : "— nm";
 
+    /// <summary>The value with its unit; "—" for a value that was not measured (NaN or infinite), never "NaN".</summary>
     public static string Number(double value, string format, string unit) =>
-        value.ToString(format, CultureInfo.InvariantCulture) + (unit.Length > 0 ? " " + unit : "");
+        (double.IsFinite(value) ? value.ToString(format, CultureInfo.InvariantCulture) : "—") + (unit.Length > 0 ? " " + unit : "");
 
     public static string Duration(TimeSpan span) =>
         span.TotalHours >= 1 ? string.Create(CultureInfo.InvariantCulture, $"{(int)span.TotalHours} h {span.Minutes:D2} min")
@@ -38,6 +39,11 @@ public static class Units
 
     public static string Value(double value, string channel)
     {
+        // A shutter channel is a state (1 open, 0 closed), not a quantity: say so instead of showing a bare number.
+        if (channel.EndsWith("_shutter", StringComparison.Ordinal) && value is 0 or 1)
+        {
+            return value == 1 ? "open (1)" : "closed (0)";
+        }
         string unit = UnitOf(channel);
         return value.ToString(unit == "" ? "G6" : "F1", CultureInfo.InvariantCulture) + (unit == "" ? "" : " " + unit);
     }

@@ -56,7 +56,11 @@ public sealed class AlertsTests
     {
         using var ctx = new DashboardTestContext(role: "viewer");
         var page = ctx.Render<Alerts>();
-        page.Find($"[data-alert={InventedLabScenario.OpenAlert}] [data-testid=acknowledge]").Click();
+        var button = page.Find($"[data-alert={InventedLabScenario.OpenAlert}] [data-testid=acknowledge]");
+        Assert.True(button.HasAttribute("disabled"));
+        Assert.Contains("viewer", page.Find("[data-testid=read-only]").TextContent, StringComparison.Ordinal);
+        // The handler refuses too, should an event reach the circuit despite the disabled button.
+        button.Click();
 
         Assert.Contains("Refused", page.Find("[data-testid=alert-message]").TextContent, StringComparison.Ordinal);
         var alert = (await ctx.Data.GetAlertsAsync(CancellationToken.None)).Single(a => a.AlertId == InventedLabScenario.OpenAlert);

@@ -20,7 +20,7 @@ public sealed class WaferTests
     {
         using var ctx = new DashboardTestContext();
         var page = ctx.Render<Wafer>(p => p.Add(w => w.WaferId, InventedLabScenario.Wafer));
-        Assert.Contains("REVIEW", page.Find("[data-testid=verdict]").TextContent, StringComparison.Ordinal);
+        Assert.Contains("WARN", page.Find("[data-testid=verdict]").TextContent, StringComparison.Ordinal);
         Assert.Contains("an alarm excursion of 9.0 K", page.Markup, StringComparison.Ordinal);
         Assert.Contains("1.42 µm⁻²", page.Find("[data-testid=wafer-stats]").TextContent, StringComparison.Ordinal);
         Assert.Equal("api/wafers/W-2030-A/reports/csv", page.Find("[data-testid=report-csv]").GetAttribute("href"));
