@@ -156,7 +156,12 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
         {
             try
             {
-                var stored = await _store.SaveAlertAsync(alert, cancellationToken).ConfigureAwait(false);
+                var toSave = alert;
+                if (alert.Id == 0 && alert.RunId is null && alert.Chamber is { } chamber)
+                {
+                    toSave = alert with { RunId = await RunDuringAsync(chamber, alert.RaisedAt, cancellationToken).ConfigureAwait(false) };
+                }
+                var stored = await _store.SaveAlertAsync(toSave, cancellationToken).ConfigureAwait(false);
                 saved[key] = stored;
                 lock (_bookGate)
                 {
@@ -167,11 +172,11 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
                     }
                     else if (current is not null)
                     {
-                        _unsaved[key] = current with { Id = stored.Id };
+                        _unsaved[key] = current with { Id = stored.Id, RunId = stored.RunId };
                     }
                     if (_book.Current.TryGetValue(key, out var inBook) && inBook.Id == 0)
                     {
-                        _book.Update(inBook with { Id = stored.Id });
+                        _book.Update(inBook with { Id = stored.Id, RunId = stored.RunId });
                     }
                 }
             }
@@ -182,6 +187,13 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
             }
         }
         return saved;
+    }
+
+    /// <summary>The run the chamber was in when the alert was raised (started before it, not ended before it), if any.</summary>
+    private async Task<long?> RunDuringAsync(string chamber, DateTimeOffset raisedAt, CancellationToken cancellationToken)
+    {
+        var runs = await _store.ListRunsAsync(chamber, raisedAt.AddTicks(10), 1, cancellationToken).ConfigureAwait(false);
+        return runs.Count == 1 && (runs[0].EndedAt is null || runs[0].EndedAt >= raisedAt) ? runs[0].Id : null;
     }
 
     private async Task TickAsync(CancellationToken stoppingToken)
