@@ -79,9 +79,13 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
     [InlineData("INT")]
     public async Task Demo_SignalWhilePlaying_StopsCleanly(string signal)
     {
-        var psi = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        // A test runner started in the background by a non-interactive shell inherits SIGINT as ignored, and .NET
+        // keeps an inherited SIG_IGN; a terminal's Ctrl+C reaches a demo with the default disposition, so the child
+        // is started with it restored (Python's signal module, then exec into dotnet under the same pid).
+        var psi = new ProcessStartInfo("/usr/bin/python3") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
         foreach (string a in new[]
         {
+            "-c", "import os, signal, sys; signal.signal(signal.SIGINT, signal.SIG_DFL); os.execvp(sys.argv[1], sys.argv[1:])", "dotnet",
             Path.Combine(AppContext.BaseDirectory, "runwatch.dll"), "demo", "--data-folder", _folder,
             $"--Broker:Port={FreePort.Next()}", $"--Urls=http://127.0.0.1:{FreePort.Next()}",
         })

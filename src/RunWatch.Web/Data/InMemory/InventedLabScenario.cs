@@ -62,15 +62,15 @@ public static class InventedLabScenario
                 new GrowthWindow(growthStart, growthEnd), [Wafer], 1, "review"),
             new ThermalResult(LNomNm: 412.0, LEffNm: 418.6, TEffC: 611.1, ConventionFactor: 1, CoveragePercent: 99.8, D0CmSquaredPerSecond: 2.5e-5, ActivationEnergyEv: 1.3),
             [new ExcursionView(excursionStart, excursionEnd, 9.0, AlertSeverity.Alarm, 1.1)],
-            new RadiusPrediction(38.5, 6.2, 30.9, 46.4), TemperatureChannel));
+            new RadiusPrediction(38.5, 6.2, 28.3, 48.7), TemperatureChannel));
         data.AddRun(new RunDetail(
             new RunSummary(ActiveRun, GrowingChamber, "nw-gaas-std", activeStart, null, 610, TimeSpan.FromMinutes(30),
                 new GrowthWindow(now.AddMinutes(-20), now.AddMinutes(10)), ["W-2031-A", "W-2031-B"], 0, null),
-            null, [], new RadiusPrediction(37.9, 6.0, 30.5, 45.6), TemperatureChannel));
+            null, [], new RadiusPrediction(37.9, 6.0, 28.0, 47.8), TemperatureChannel));
         data.AddRun(new RunDetail(
             new RunSummary("R-2029", IdleChamber, "nw-gaas-thin", now.AddDays(-1).AddHours(-2), now.AddDays(-1), 590, TimeSpan.FromMinutes(45),
                 new GrowthWindow(now.AddDays(-1).AddHours(-1.5), now.AddDays(-1).AddHours(-0.75)), ["W-2029-A"], 0, "pass"),
-            new ThermalResult(300.2, 299.1, 589.7, 1, 100, 2.5e-5, 1.3), [], new RadiusPrediction(28.0, 4.1, 22.9, 33.1), TemperatureChannel));
+            new ThermalResult(300.2, 299.1, 589.7, 1, 100, 2.5e-5, 1.3), [], new RadiusPrediction(28.0, 4.1, 21.3, 34.7), TemperatureChannel));
 
         SeedWafer(data, now);
         data.AddAlert(new AlertView(OpenAlert, IdleChamber, EndedRun, "Substrate 9.0 K above setpoint for 3 min (alarm band ±8 K)", AlertSeverity.Alarm,

@@ -19,6 +19,8 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
     : IDashboardQueries, IDashboardCommands
 {
     private const int MaxSamples = 2_000_000;
+    private const string CommentSubject = "alert ";
+    private const string CommentSuffix = " (comment)";
 
     public async Task<IReadOnlyList<ChamberStatus>> GetChambersAsync(CancellationToken cancellationToken)
     {
@@ -63,7 +65,8 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
     public async Task<IReadOnlyList<RunSummary>> GetRunsAsync(CancellationToken cancellationToken)
     {
         var runs = await store.ListRunsAsync(null, null, 1000, cancellationToken).ConfigureAwait(false);
-        return runs.Select(ToSummary).ToList();
+        var verdicts = wafers is null ? null : await wafers.GetRunVerdictsAsync(cancellationToken).ConfigureAwait(false);
+        return runs.Select(r => ToSummary(r) with { Verdict = verdicts is not null && verdicts.TryGetValue(r.Id, out string? v) ? v : null }).ToList();
     }
 
     public async Task<RunDetail?> GetRunAsync(string runId, CancellationToken cancellationToken)
@@ -83,7 +86,15 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         {
             thermal = new ThermalResult(run.LNomNm ?? double.NaN, leff, teff, c, (run.Coverage ?? 0) * 100, double.NaN, double.NaN);
         }
-        return new RunDetail(ToSummary(run), thermal, Excursions(run.ExcursionsJson, run.LEffNm), null, channel);
+        var summary = ToSummary(run);
+        RadiusPrediction? prediction = null;
+        if (wafers is not null)
+        {
+            var verdicts = await wafers.GetRunVerdictsAsync(cancellationToken).ConfigureAwait(false);
+            summary = summary with { Verdict = verdicts.TryGetValue(run.Id, out string? v) ? v : null };
+            prediction = await wafers.GetRunPredictionAsync(run.Id, cancellationToken).ConfigureAwait(false);
+        }
+        return new RunDetail(summary, thermal, Excursions(run.ExcursionsJson, run.LEffNm), prediction, channel);
     }
 
     public Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken) =>
@@ -104,11 +115,16 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         var active = await store.GetActiveAlertsAsync(cancellationToken).ConfigureAwait(false);
         var history = await store.GetAlertHistoryAsync(now.AddDays(-30), now.AddSeconds(1), 500, cancellationToken).ConfigureAwait(false);
         var runs = (await store.ListRunsAsync(null, null, 1000, cancellationToken).ConfigureAwait(false)).ToDictionary(r => r.Id, r => r.Name);
+        var comments = await AlertCommentsAsync(cancellationToken).ConfigureAwait(false);
         return active.Concat(history).DistinctBy(a => a.Id).OrderByDescending(a => a.RaisedAt)
-            .Select(a => new AlertView(a.Id.ToString(CultureInfo.InvariantCulture), a.Chamber ?? "daemon",
-                a.RunId is { } r && runs.TryGetValue(r, out var name) ? name : null, a.Message,
-                a.Severity == Storage.AlertSeverity.High ? AlertSeverity.Alarm : AlertSeverity.Warning, Map(a.State), a.RaisedAt, a.ClearedAt,
-                a.AcknowledgedBy, null, null, null))
+            .Select(a =>
+            {
+                string id = a.Id.ToString(CultureInfo.InvariantCulture);
+                return new AlertView(id, a.Chamber ?? "daemon",
+                    a.RunId is { } r && runs.TryGetValue(r, out var name) ? name : null, a.Message,
+                    a.Severity == Storage.AlertSeverity.High ? AlertSeverity.Alarm : AlertSeverity.Warning, Map(a.State), a.RaisedAt, a.ClearedAt,
+                    a.AcknowledgedBy, comments.TryGetValue(CommentSubject + id, out string? comment) ? comment : null, null, null);
+            })
             .ToList();
     }
 
@@ -219,7 +235,27 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
     private Task RecordCommentAsync(string user, string action, string alertId, string comment, CancellationToken cancellationToken) =>
         string.IsNullOrWhiteSpace(comment)
             ? Task.CompletedTask
-            : RecordAuditAsync(new AuditEntry(time.GetUtcNow(), user, action + " (comment)", "alert " + alertId, comment), cancellationToken);
+            : RecordAuditAsync(new AuditEntry(time.GetUtcNow(), user, action + CommentSuffix, CommentSubject + alertId, comment), cancellationToken);
+
+    /// <summary>The newest operator comment per alert, from the audit trail where acknowledging and shelving write it.</summary>
+    private async Task<Dictionary<string, string>> AlertCommentsAsync(CancellationToken cancellationToken)
+    {
+        var comments = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var entry in await store.GetAuditAsync(5000, cancellationToken).ConfigureAwait(false))
+        {
+            // Newest first: the first comment seen for an alert is its latest.
+            if (entry.Subject is { } subject && subject.StartsWith(CommentSubject, StringComparison.Ordinal)
+                && entry.Action.EndsWith(CommentSuffix, StringComparison.Ordinal) && !comments.ContainsKey(subject) && entry.DetailJson is { } json)
+            {
+                using var doc = JsonDocument.Parse(json);
+                if (doc.RootElement.ValueKind == JsonValueKind.Object && doc.RootElement.TryGetProperty("detail", out var detail) && detail.GetString() is { } text)
+                {
+                    comments[subject] = text;
+                }
+            }
+        }
+        return comments;
+    }
 
     private async Task<ChamberStatus> ComposeAsync(RegisteredChamber chamber, CancellationToken cancellationToken)
     {

@@ -19,7 +19,8 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         }
         RunRecord? run = await wafers.FindRunOfWaferAsync(waferId, cancellationToken).ConfigureAwait(false);
         var fields = new List<FieldView>();
-        foreach (FieldRecord f in await wafers.GetFieldsOfWaferAsync(waferId, cancellationToken).ConfigureAwait(false))
+        IReadOnlyList<FieldRecord> fieldRecords = await wafers.GetFieldsOfWaferAsync(waferId, cancellationToken).ConfigureAwait(false);
+        foreach (FieldRecord f in fieldRecords)
         {
             AnalysisRecord? a = await wafers.GetLatestAnalysisAsync(f.Id, cancellationToken).ConfigureAwait(false);
             fields.Add(new FieldView(f.Id.ToString(CultureInfo.InvariantCulture), f.RelativePath, f.ImportedAt, f.NmPerPx ?? double.NaN, a?.WireCount ?? 0));
@@ -34,6 +35,14 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
             (statistics, verdict) = ReadSummary(summary, json.CreatedAt);
         }
         IReadOnlyList<WireMeasurement> wires = csv is not null && File.Exists(csv.FilePath) ? await ReadWiresAsync(csv.FilePath, cancellationToken).ConfigureAwait(false) : [];
+        if (statistics is not null)
+        {
+            statistics = statistics with
+            {
+                ClarkEvansR = await MeanClarkEvansAsync(fieldRecords, cancellationToken).ConfigureAwait(false),
+                MeanNormalisedCaptureArea = MeanNormalisedArea(wires),
+            };
+        }
         return new WaferDetail(waferId, run?.Name ?? "", fields, statistics, wires, verdict, [.. reports.Select(r => r.Format).OrderBy(f => f, StringComparer.Ordinal)]);
     }
 
