@@ -95,7 +95,7 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
         }
         ModelFitRecord proposed = fits[^1];
         await wafers.AcceptModelFitAsync(proposed.Id, DemoUser, cancellationToken).ConfigureAwait(false);
-        await store.AppendAuditAsync(new AuditEntry(time.GetUtcNow(), DemoUser, "accept-model", $"radius model {proposed.Id} of nw-demo (demo: accepted automatically)", null), cancellationToken).ConfigureAwait(false);
+        await store.AppendAuditAsync(new AuditEntry(time.GetUtcNow(), DemoUser, "model accepted", $"radius model {proposed.Id} of nw-demo (demo: accepted automatically)", null), cancellationToken).ConfigureAwait(false);
         output.WriteLine($"[demo] radius model of process nw-demo fitted on {string.Join(", ", proposed.Wafers)} accepted by '{DemoUser}' (the demo does this itself; in use an engineer reviews and accepts it)");
     }
 
