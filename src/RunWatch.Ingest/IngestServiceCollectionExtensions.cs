@@ -56,6 +56,7 @@ public static partial class IngestServiceCollectionExtensions
             .ValidateOnStart();
 
         services.TryAddSingleton<ChamberRegistryHolder>();
+        services.TryAddSingleton<IChamberAlarmBands, ConfiguredAlarmBands>();
         services.TryAddSingleton<InboundQueue>();
         services.TryAddSingleton<IngestHealth>();
         services.TryAddSingleton(sp => new IngestMetrics(sp.GetRequiredService<CollectorRegistry>()));

@@ -27,11 +27,12 @@ public sealed class DashboardOptions
     /// <value>250 ms.</value>
     public TimeSpan LiveRedrawInterval { get; set; } = TimeSpan.FromMilliseconds(250);
 
-    /// <summary>Deviation from setpoint at which the chart's warning band ends, in kelvin.</summary>
+    /// <summary>Deviation from setpoint at which the chart's warning band ends, in kelvin, where the host gives no
+    /// chamber bands (serve and demo draw each chamber's own alert bands from its Excursions configuration).</summary>
     /// <value>3 K.</value>
     public double WarningBandK { get; set; } = 3;
 
-    /// <summary>Deviation from setpoint at which the chart's alarm band ends, in kelvin.</summary>
+    /// <summary>Deviation from setpoint at which the chart's alarm band ends, in kelvin, where the host gives no chamber bands.</summary>
     /// <value>8 K.</value>
     public double AlarmBandK { get; set; } = 8;
 

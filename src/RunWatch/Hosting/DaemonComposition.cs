@@ -1,3 +1,4 @@
+using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Diagnostics.HealthChecks;
 using Microsoft.AspNetCore.Http;
@@ -47,6 +48,8 @@ public static class DaemonComposition
 
         Metrics.SuppressDefaultMetrics();
         builder.Services.AddRunWatchIngest(builder.Configuration);
+        // A dashboard in the same host draws each chamber's chart bands from the alert engine's own configuration.
+        builder.Services.TryAddSingleton<RunWatch.Web.Data.IChamberBandSource, AlertEngineBandSource>();
         return builder;
     }
 

@@ -102,6 +102,8 @@ public sealed class DashboardInDaemonTests : IAsyncLifetime
         Assert.NotNull(chamber);
         Assert.Equal(612.3, chamber.Temperature);
         Assert.Equal(610, chamber.Setpoint);
+        // The chart bands are the chamber's alert bands (Excursions defaults 5 K / 15 K), not the dashboard's fallback 3 K / 8 K.
+        Assert.Equal(new TemperatureBands(5, 15), chamber.Bands);
         using var http = new HttpClient();
         var login = await http.GetAsync(_baseUrl + "/login");
         Assert.Equal(HttpStatusCode.OK, login.StatusCode);

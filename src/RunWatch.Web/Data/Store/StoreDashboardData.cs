@@ -15,7 +15,8 @@ namespace RunWatch.Web.Data.Store;
 /// did not register reports nothing stored, and its actions answer with a plain "not available".
 /// </summary>
 public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands alerts, TimeProvider time, IOptions<DashboardOptions> options,
-    StoreWaferData? wafers = null, IFieldAssigner? assigner = null, QcSpecificationCatalog? specifications = null, IModelRefitter? refitter = null)
+    StoreWaferData? wafers = null, IFieldAssigner? assigner = null, QcSpecificationCatalog? specifications = null, IModelRefitter? refitter = null,
+    IChamberBandSource? bands = null)
     : IDashboardQueries, IDashboardCommands
 {
     private const int MaxSamples = 2_000_000;
@@ -288,7 +289,8 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             latest.TryGetValue(temperature, out double t) ? t : null,
             latest.TryGetValue(setpoint, out double sp) ? sp : open?.SetpointC,
             temperature, setpoint, "°C", lastAt, open is null ? null : ToSummary(open), lastEnded,
-            active.Count(a => a.Chamber == chamber.Definition.Name), latest, new TemperatureBands(options.Value.WarningBandK, options.Value.AlarmBandK));
+            active.Count(a => a.Chamber == chamber.Definition.Name), latest,
+            bands?.BandsFor(chamber.Definition.Name) ?? new TemperatureBands(options.Value.WarningBandK, options.Value.AlarmBandK));
     }
 
     private static RunSummary ToSummary(RunRecord r)
