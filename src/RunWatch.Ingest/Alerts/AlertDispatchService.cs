@@ -24,6 +24,7 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
     private readonly Lock _bookGate = new();
     private readonly Dictionary<string, AlertRecord> _unsaved = new(StringComparer.Ordinal);
     private readonly Dictionary<string, string> _pendingUser = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, DateTimeOffset> _lookForRun = new(StringComparer.Ordinal);
 
     public AlertDispatchService(AlertEngine engine, IRunWatchStore store, IEnumerable<IAlertSink> sinks, IOptions<AlertsOptions> options,
         IngestMetrics metrics, TimeProvider timeProvider, ILogger<AlertDispatchService> logger)
@@ -162,6 +163,13 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
                     toSave = alert with { RunId = await RunDuringAsync(chamber, alert.RaisedAt, cancellationToken).ConfigureAwait(false) };
                 }
                 var stored = await _store.SaveAlertAsync(toSave, cancellationToken).ConfigureAwait(false);
+                if (alert.Id == 0 && stored.RunId is null && stored.Chamber is not null)
+                {
+                    lock (_bookGate)
+                    {
+                        _lookForRun[key] = _timeProvider.GetUtcNow() + TimeSpan.FromMinutes(2);
+                    }
+                }
                 saved[key] = stored;
                 lock (_bookGate)
                 {
@@ -189,6 +197,57 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
         return saved;
     }
 
+    /// <summary>
+    /// An alert raised in the first moments of a run can be saved before the run tracker has stored the run; for two
+    /// minutes after its first save, a chamber alert without a run looks again each tick and, once the run is there,
+    /// is saved with it.
+    /// </summary>
+    private async Task LinkRecentAlertsToRunsAsync(CancellationToken cancellationToken)
+    {
+        var now = _timeProvider.GetUtcNow();
+        List<AlertRecord> candidates = [];
+        lock (_bookGate)
+        {
+            foreach (var (key, until) in _lookForRun.ToArray())
+            {
+                if (until < now || !_book.Current.TryGetValue(key, out var inBook) || inBook.RunId is not null)
+                {
+                    _lookForRun.Remove(key);
+                }
+                else if (inBook.Id != 0 && !_unsaved.ContainsKey(key))
+                {
+                    candidates.Add(inBook);
+                }
+            }
+        }
+        foreach (var alert in candidates)
+        {
+            long? runId;
+            try
+            {
+                runId = await RunDuringAsync(alert.Chamber!, alert.RaisedAt, cancellationToken).ConfigureAwait(false);
+            }
+            catch (StoreUnavailableException)
+            {
+                return;
+            }
+            if (runId is null)
+            {
+                continue;
+            }
+            lock (_bookGate)
+            {
+                if (_book.Current.TryGetValue(alert.Key, out var current) && current.Id == alert.Id && current.RunId is null)
+                {
+                    var linked = current with { RunId = runId };
+                    _book.Update(linked);
+                    _lookForRun.Remove(alert.Key);
+                    _unsaved[alert.Key] = _unsaved.TryGetValue(alert.Key, out var pending) ? pending with { RunId = runId } : linked;
+                }
+            }
+        }
+    }
+
     /// <summary>The run the chamber was in when the alert was raised (started before it, not ended before it), if any.</summary>
     private async Task<long?> RunDuringAsync(string chamber, DateTimeOffset raisedAt, CancellationToken cancellationToken)
     {
@@ -204,6 +263,7 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
             while (await timer.WaitForNextTickAsync(stoppingToken).ConfigureAwait(false))
             {
                 _engine.Tick(_timeProvider.GetUtcNow());
+                await LinkRecentAlertsToRunsAsync(stoppingToken).ConfigureAwait(false);
                 bool retry;
                 lock (_bookGate)
                 {

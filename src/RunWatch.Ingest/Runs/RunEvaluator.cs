@@ -51,13 +51,23 @@ internal sealed class RunEvaluator(IRunWatchStore store)
         GrowthPlan? plan = setpointC is { } s && run.PlannedSeconds is { } planned ? new GrowthPlan(s, planned) : null;
         var result = DiffusionLengthCalculator.Compute(record, diffusivity, window, chamber.Options.DiffusionLength, calibration, plan);
 
-        var excursions = Replay(chamber, record, calibration, setpoints, origin, run.SetpointC, diffusivity);
+        var trueC = new double[times.Length];
+        var setpointAt = new double[times.Length];
+        SetpointsAtSamples(record, calibration, setpoints, origin, run.SetpointC, trueC, setpointAt);
+        var excursions = Replay(chamber, record, trueC, setpointAt, diffusivity);
         double c = chamber.Options.DiffusionLength.ConventionFactor;
+        double maxGapS = chamber.Options.Excursions.MaxGap.TotalSeconds;
         var excursionJson = new List<RunExcursionJson>(excursions.Count);
         foreach (var e in excursions)
         {
+            // L_eff integrates the growth window only: the heating ramp or a pre-bake outside it changes nothing.
+            bool inWindow = Math.Min(e.EndS, window.EndS) > Math.Max(e.StartS, window.StartS);
+            // The excursion's effect includes the segment leading into its first sample, as the monitor counts it.
+            int first = Array.BinarySearch(times, e.StartS);
+            double leadInS = first > 0 ? times[first - 1] : e.StartS;
+            double excess = ExcursionWindowEffect.ExcessIntegralCmSq(times, trueC, setpointAt, leadInS, e.EndS, window.StartS, window.EndS, diffusivity, maxGapS);
             excursionJson.Add(new RunExcursionJson(origin.AddSeconds(e.StartS), origin.AddSeconds(e.EndS), e.DurationS, e.PeakDeviationK, e.PeakValueC,
-                e.Severity.ToString(), Finite(e.LengthChangeUm(result.IntegralCmSq, c) * 1000.0), e.Closed));
+                e.Severity.ToString(), Finite(DiffusionLength.LengthChangeUm(result.IntegralCmSq, excess, c) * 1000.0), e.Closed, inWindow));
         }
         var summary = new RunSummaryJson(c, result.IntegralCmSq, result.CoveredS, window.StartS, window.EndS, result.Gaps.Count, result.IsComplete,
             Finite(result.LogSensitivityPerK), readings.Count, plan is not null, null);
@@ -100,14 +110,12 @@ internal sealed class RunEvaluator(IRunWatchStore store)
         return double.IsNaN(start) ? new GrowthWindow(0, Math.Max(0, endS)) : new GrowthWindow(start, Math.Max(start, stop));
     }
 
-    private static List<ExcursionSummary> Replay(ChamberRuntime chamber, ThermalRecord record, TemperatureCalibration calibration,
-        IReadOnlyList<SampleRecord> setpoints, DateTimeOffset origin, double? announcedSetpointC, ArrheniusDiffusivity diffusivity)
+    /// <summary>True temperature and the setpoint in force (announced, then the setpoint channel's latest) at each sample.</summary>
+    private static void SetpointsAtSamples(ThermalRecord record, TemperatureCalibration calibration, IReadOnlyList<SampleRecord> setpoints,
+        DateTimeOffset origin, double? announcedSetpointC, double[] trueC, double[] setpointAt)
     {
-        var collector = new ExcursionCollector();
-        var monitor = new ExcursionMonitor(chamber.Options.Excursions, diffusivity, collector);
         var times = record.TimesS;
         var readings = record.ReadingsC;
-        monitor.BeginRun(times[0]);
         int next = 0;
         double setpoint = announcedSetpointC ?? double.NaN;
         for (int i = 0; i < times.Length; i++)
@@ -117,7 +125,20 @@ internal sealed class RunEvaluator(IRunWatchStore store)
                 setpoint = calibration.ToTrueC(setpoints[next].Value);
                 next++;
             }
-            monitor.Observe(times[i], calibration.ToTrueC(readings[i]), setpoint);
+            trueC[i] = calibration.ToTrueC(readings[i]);
+            setpointAt[i] = setpoint;
+        }
+    }
+
+    private static List<ExcursionSummary> Replay(ChamberRuntime chamber, ThermalRecord record, double[] trueC, double[] setpointAt, ArrheniusDiffusivity diffusivity)
+    {
+        var collector = new ExcursionCollector();
+        var monitor = new ExcursionMonitor(chamber.Options.Excursions, diffusivity, collector);
+        var times = record.TimesS;
+        monitor.BeginRun(times[0]);
+        for (int i = 0; i < times.Length; i++)
+        {
+            monitor.Observe(times[i], trueC[i], setpointAt[i]);
         }
         monitor.EndRun(times[^1]);
         return collector.Summaries;

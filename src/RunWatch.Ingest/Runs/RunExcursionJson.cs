@@ -7,6 +7,8 @@ namespace RunWatch.Ingest.Runs;
 /// <param name="PeakDeviationK">Signed peak deviation from the setpoint, K.</param>
 /// <param name="PeakValueC">True temperature at the peak, °C.</param>
 /// <param name="Severity">Highest band reached.</param>
-/// <param name="LengthChangeNm">Its effect on L_eff, nm (L_eff actual minus L_eff with the excursion at the setpoint).</param>
+/// <param name="LengthChangeNm">Its effect on L_eff, nm (L_eff actual minus L_eff with the part of the excursion inside the growth window at the setpoint; 0 outside it).</param>
 /// <param name="Closed">False when the run ended during the excursion.</param>
-internal sealed record RunExcursionJson(DateTimeOffset Start, DateTimeOffset End, double DurationS, double PeakDeviationK, double PeakValueC, string Severity, double? LengthChangeNm, bool Closed);
+/// <param name="InGrowthWindow">Whether any of it falls inside the growth window (only that part changes L_eff).</param>
+internal sealed record RunExcursionJson(DateTimeOffset Start, DateTimeOffset End, double DurationS, double PeakDeviationK, double PeakValueC, string Severity,
+    double? LengthChangeNm, bool Closed, bool InGrowthWindow);

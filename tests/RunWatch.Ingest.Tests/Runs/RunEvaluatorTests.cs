@@ -56,6 +56,23 @@ public sealed class RunEvaluatorTests : IDisposable
     }
 
     [Fact]
+    public async Task EvaluateAsync_ExcursionBeforeShutterOpens_ListedOutsideTheWindowWithNoEffectOnL()
+    {
+        // Hot from 400 to 460 s, growth shutter open from 500 s to the end: the growth window never sees the excursion.
+        var chamber = await SetUpAsync(t => t is >= 400 and < 460 ? 620.0 : 600.0, shutterOpensAtS: 500);
+
+        var run = await new RunEvaluator(_store).EvaluateAsync(Run(), chamber, CancellationToken.None);
+
+        using var doc = System.Text.Json.JsonDocument.Parse(run.ExcursionsJson!);
+        var excursion = Assert.Single(doc.RootElement.EnumerateArray());
+        Assert.False(excursion.GetProperty("inGrowthWindow").GetBoolean());
+        Assert.Equal(0.0, excursion.GetProperty("lengthChangeNm").GetDouble());
+        // DERIVED: L_eff over the 500 s window at 600 °C, same constants as the constant-setpoint test above.
+        double expectedNm = Math.Sqrt(1e-2 * Math.Exp(-1.3 / (8.617333262e-5 * 873.15)) * 500.0) * 1e7;
+        Assert.Equal(expectedNm, run.LEffNm!.Value, expectedNm * 1e-6);
+    }
+
+    [Fact]
     public void GrowthWindowFrom_ShutterOpensLateClosesEarly_WindowBetween()
     {
         var shutter = new[] { Sample(0, 0), Sample(100, 1), Sample(300, 0), Sample(350, 1), Sample(900, 0) };
@@ -81,7 +98,7 @@ public sealed class RunEvaluatorTests : IDisposable
         Chamber = "C1", Name = "R1", Status = RunStatus.Closed, StartedAt = T0, EndedAt = T0.AddSeconds(1000), SetpointC = 600, PlannedSeconds = 1000,
     };
 
-    private async Task<ChamberRuntime> SetUpAsync(Func<double, double> temperatureAt)
+    private async Task<ChamberRuntime> SetUpAsync(Func<double, double> temperatureAt, int? shutterOpensAtS = null)
     {
         await _store.MigrateAsync(CancellationToken.None);
         var options = TestChambers.Chamber();
@@ -92,6 +109,10 @@ public sealed class RunEvaluatorTests : IDisposable
         {
             batch.AddSample(new SampleRow(chamber.ChamberId, chamber.GrowthTemperature!.ChannelId, UnixMicros.From(T0.AddSeconds(i)), i, temperatureAt(i)));
             batch.AddSample(new SampleRow(chamber.ChamberId, chamber.Setpoint!.ChannelId, UnixMicros.From(T0.AddSeconds(i)), i, 600));
+            if (shutterOpensAtS is { } open)
+            {
+                batch.AddSample(new SampleRow(chamber.ChamberId, chamber.GrowthShutter!.ChannelId, UnixMicros.From(T0.AddSeconds(i)), i, i >= open ? 1 : 0));
+            }
         }
         await _store.WriteBatchAsync(batch, CancellationToken.None);
         return chamber;

@@ -339,7 +339,8 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             list.Add(new ExcursionView(e.GetProperty("start").GetDateTimeOffset(), e.GetProperty("end").GetDateTimeOffset(),
                 e.GetProperty("peakDeviationK").GetDouble(),
                 severity.Contains("alarm", StringComparison.OrdinalIgnoreCase) ? AlertSeverity.Alarm : AlertSeverity.Warning,
-                lEffNm is { } l && l > 0 ? changeNm / l * 100 : double.NaN));
+                lEffNm is { } l && l > 0 ? changeNm / l * 100 : double.NaN,
+                !e.TryGetProperty("inGrowthWindow", out var inWindow) || inWindow.ValueKind != JsonValueKind.False));
         }
         return list;
     }

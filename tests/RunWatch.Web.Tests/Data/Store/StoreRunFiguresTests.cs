@@ -9,6 +9,11 @@ namespace RunWatch.Web.Tests.Data.Store;
 public sealed class StoreRunFiguresTests : IDisposable
 {
     private static readonly DateTimeOffset Start = new(2026, 4, 1, 8, 0, 0, TimeSpan.Zero);
+    private const string RampAndGrowthExcursions = """
+        [{"start":"2026-04-01T10:00:10Z","end":"2026-04-01T10:00:40Z","peakDeviationK":-36,"severity":"Alarm","lengthChangeNm":0,"closed":true,"inGrowthWindow":false},
+         {"start":"2026-04-01T10:05:00Z","end":"2026-04-01T10:05:09Z","peakDeviationK":6,"severity":"Warning","lengthChangeNm":1.25,"closed":true,"inGrowthWindow":true}]
+        """;
+
     private readonly StoreHarness _harness = new();
 
     [Fact]
@@ -17,7 +22,11 @@ public sealed class StoreRunFiguresTests : IDisposable
         var store = _harness.Store;
         await store.RegisterChambersAsync([new ChamberDefinition("inv-1", "lab", "invented chamber", [new ChannelDefinition("substrate_tc", ChannelRole.GrowthTemperature, "degC", null, null, [])])], CancellationToken.None);
         var run = await store.SaveRunAsync(new RunRecord { Chamber = "inv-1", Name = "R-INV-7", StartedAt = Start, EndedAt = Start.AddHours(1), Status = RunStatus.Closed }, CancellationToken.None);
-        var other = await store.SaveRunAsync(new RunRecord { Chamber = "inv-1", Name = "R-INV-8", StartedAt = Start.AddHours(2), Status = RunStatus.Open }, CancellationToken.None);
+        var other = await store.SaveRunAsync(new RunRecord
+        {
+            Chamber = "inv-1", Name = "R-INV-8", StartedAt = Start.AddHours(2), Status = RunStatus.Open, LEffNm = 250,
+            ExcursionsJson = RampAndGrowthExcursions,
+        }, CancellationToken.None);
         await store.UpsertWaferAsync("W-A", run.Id, "nw-inv", CancellationToken.None);
         await store.UpsertWaferAsync("W-B", run.Id, "nw-inv", CancellationToken.None);
         // W-A first failed, then passed on re-analysis; W-B warns. The run's verdict is the worst latest one: WARN.
@@ -36,7 +45,11 @@ public sealed class StoreRunFiguresTests : IDisposable
         Assert.Equal("WARN", detail.Summary.Verdict);
         // The newest JSON summary of the run's wafers (W-A at 12:00) carries the prediction.
         Assert.Equal(new RunWatch.Web.Data.RadiusPrediction(41.5, 5.25, 33.0, 50.5), detail.Prediction);
-        Assert.Null((await _harness.Data.GetRunAsync("R-INV-8", CancellationToken.None))!.Prediction);
+        var eight = await _harness.Data.GetRunAsync("R-INV-8", CancellationToken.None);
+        Assert.Null(eight!.Prediction);
+        // The ramp excursion is listed but outside the growth window; the one inside changes L_eff by 1.25 / 250 = 0.5 %.
+        Assert.Equal([false, true], eight.Excursions.Select(e => e.InGrowthWindow).ToArray());
+        Assert.Equal(0.5, eight.Excursions[1].EffectOnLPercent, 1e-12);
     }
 
     [Fact]
