@@ -98,14 +98,8 @@ public sealed partial class SqliteRunWatchStore
         ArgumentNullException.ThrowIfNull(entry);
         return WriteAsync(connection =>
         {
-            using var command = connection.CreateCommand();
-            command.CommandText = "INSERT INTO audit_entries (at_us, actor, action, subject, detail_json) VALUES ($t, $actor, $action, $subject, $detail)";
-            command.Parameters.AddWithValue("$t", UnixMicros.From(entry.At));
-            command.Parameters.AddWithValue("$actor", entry.Actor);
-            command.Parameters.AddWithValue("$action", entry.Action);
-            command.Parameters.AddWithValue("$subject", (object?)entry.Subject ?? DBNull.Value);
-            command.Parameters.AddWithValue("$detail", (object?)entry.DetailJson ?? DBNull.Value);
-            return command.ExecuteNonQuery();
+            InsertAudit(connection, null, entry);
+            return 1;
         }, cancellationToken);
     }
 

@@ -192,7 +192,8 @@ public sealed partial class SqliteRunWatchStore : ISettingsStore
         command.Parameters.AddWithValue("$by", s.UpdatedBy);
     }
 
-    private static void InsertAudit(SqliteConnection connection, SqliteTransaction transaction, AuditEntry entry)
+    /// <summary>One audit row, inside the caller's transaction when it has one.</summary>
+    private static void InsertAudit(SqliteConnection connection, SqliteTransaction? transaction, AuditEntry entry)
     {
         using var command = connection.CreateCommand();
         command.Transaction = transaction;

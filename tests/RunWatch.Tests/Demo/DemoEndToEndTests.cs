@@ -93,12 +93,7 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
             psi.ArgumentList.Add(a);
         }
         var output = new StringBuilder();
-        using var process = new Process { StartInfo = psi };
-        process.OutputDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
-        process.ErrorDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
-        process.Start();
-        process.BeginOutputReadLine();
-        process.BeginErrorReadLine();
+        using var process = StartCapturing(psi, output);
         string Text() { lock (output) { return output.ToString(); } }
         var deadline = DateTime.UtcNow.AddMinutes(1);
         while (!Text().Contains("[demo] run R-DEMO-01", StringComparison.Ordinal) && !process.HasExited && DateTime.UtcNow < deadline)
@@ -126,6 +121,18 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
         Assert.True(Text().Contains("[demo] stopped.", StringComparison.Ordinal), $"SIG{signal} while playing did not end in '[demo] stopped.' (exit {process.ExitCode}):\n" + Text());
     }
 
+    /// <summary>Starts the process with standard output and error both appended to <paramref name="output"/> (lock it to read).</summary>
+    private static Process StartCapturing(ProcessStartInfo psi, StringBuilder output)
+    {
+        var process = new Process { StartInfo = psi };
+        process.OutputDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
+        process.ErrorDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
+        process.Start();
+        process.BeginOutputReadLine();
+        process.BeginErrorReadLine();
+        return process;
+    }
+
     private static (int ExitCode, string Output) Run(TimeSpan timeout, params string[] args)
     {
         var psi = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
@@ -135,12 +142,7 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
             psi.ArgumentList.Add(a);
         }
         var output = new StringBuilder();
-        using var process = new Process { StartInfo = psi };
-        process.OutputDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
-        process.ErrorDataReceived += (_, e) => { lock (output) { output.AppendLine(e.Data); } };
-        process.Start();
-        process.BeginOutputReadLine();
-        process.BeginErrorReadLine();
+        using var process = StartCapturing(psi, output);
         if (!process.WaitForExit(timeout))
         {
             process.Kill(entireProcessTree: true);
