@@ -62,13 +62,7 @@ internal sealed partial class MessageParser
             }
             else if (reader.ValueTextEquals("seq"u8))
             {
-                reader.Read();
-                if (reader.TokenType != JsonTokenType.Number || !reader.TryGetInt64(out seq) || seq < 0)
-                {
-                    Reject(RejectReason.WrongType, "seq must be a non-negative integer");
-                    invalid = true;
-                    reader.Skip();
-                }
+                invalid |= !TryReadSeq(ref reader, ref seq);
             }
             else if (reader.ValueTextEquals("v"u8))
             {

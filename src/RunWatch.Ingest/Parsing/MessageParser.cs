@@ -196,13 +196,7 @@ internal sealed partial class MessageParser
             }
             else if (reader.ValueTextEquals("seq"u8))
             {
-                reader.Read();
-                if (reader.TokenType != JsonTokenType.Number || !reader.TryGetInt64(out seq) || seq < 0)
-                {
-                    Reject(RejectReason.WrongType, "seq must be a non-negative integer");
-                    invalid = true;
-                    reader.Skip();
-                }
+                invalid |= !TryReadSeq(ref reader, ref seq);
             }
             else if (reader.ValueTextEquals("values"u8))
             {
@@ -253,6 +247,20 @@ internal sealed partial class MessageParser
             values.Read();
             AddValue(ref values, chamber, channel, timestampUs, seq, batch);
         }
+    }
+
+    /// <summary>Reads the value of a "seq" property into <paramref name="seq"/>; rejects and skips it unless it is a non-negative integer.</summary>
+    private bool TryReadSeq(ref Utf8JsonReader reader, ref long seq)
+    {
+        reader.Read();
+        if (reader.TokenType == JsonTokenType.Number && reader.TryGetInt64(out long value) && value >= 0)
+        {
+            seq = value;
+            return true;
+        }
+        Reject(RejectReason.WrongType, "seq must be a non-negative integer");
+        reader.Skip();
+        return false;
     }
 
     private void AddValue(ref Utf8JsonReader reader, ChamberRuntime chamber, ChannelRuntime channel, long timestampUs, long seq, IngestBatch batch)

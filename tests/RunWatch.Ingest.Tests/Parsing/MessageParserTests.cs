@@ -95,6 +95,8 @@ public sealed class MessageParserTests
     [InlineData(Telemetry, """{"t":1700000000,"values":{"substrate_tc":600}}""", "wrong_type")]
     [InlineData(Telemetry, """{"t":"2026-03-04T10:00:00Z","seq":-3,"values":{"substrate_tc":600}}""", "wrong_type")]
     [InlineData(Telemetry, """{"t":"2026-03-04T10:00:00Z","seq":1.5,"values":{"substrate_tc":600}}""", "wrong_type")]
+    [InlineData("runwatch/lab/C1/ch/substrate_tc", """{"t":"2026-03-04T10:00:00Z","seq":-3,"v":600}""", "wrong_type")]
+    [InlineData("runwatch/lab/C1/ch/substrate_tc", """{"t":"2026-03-04T10:00:00Z","seq":"7","v":600}""", "wrong_type")]
     [InlineData(Telemetry, """{"t":"2026-03-04T10:00:00Z","values":[600]}""", "wrong_type")]
     [InlineData(Telemetry, """{"t":"2026-03-04T10:00:00Z","values":{"substrate_tc":"600"}}""", "wrong_type")]
     [InlineData(Telemetry, """{"t":"2026-03-04T10:00:00Z","values":{"substrate_tc":true}}""", "wrong_type")]
