@@ -45,6 +45,9 @@ public interface IWaferStore
     /// <summary>The newest report files of a wafer (one per format), newest first.</summary>
     Task<IReadOnlyList<WaferReportRecord>> GetReportsAsync(string wafer, CancellationToken cancellationToken);
 
+    /// <summary>For every wafer matched to a run, the verdict of its newest report (one query, for the runs table).</summary>
+    Task<IReadOnlyList<RunWaferVerdict>> GetLatestRunVerdictsAsync(CancellationToken cancellationToken);
+
     /// <summary>Stores a model fit (proposed, or accepted when <see cref="ModelFitRecord.AcceptedAt"/> is set).</summary>
     Task<ModelFitRecord> SaveModelFitAsync(ModelFitRecord fit, CancellationToken cancellationToken);
 

@@ -253,6 +253,26 @@ public sealed partial class SqliteRunWatchStore : IWaferStore
         }, cancellationToken);
 
     /// <inheritdoc />
+    public Task<IReadOnlyList<RunWaferVerdict>> GetLatestRunVerdictsAsync(CancellationToken cancellationToken) =>
+        ReadAsync<IReadOnlyList<RunWaferVerdict>>(connection =>
+        {
+            using var command = connection.CreateCommand();
+            command.CommandText = """
+                SELECT w.run_id, w.name, r.verdict
+                FROM reports r JOIN wafers w ON w.id = r.wafer_id
+                WHERE w.run_id IS NOT NULL AND r.verdict IS NOT NULL AND r.verdict <> ''
+                  AND r.id = (SELECT MAX(r2.id) FROM reports r2 WHERE r2.wafer_id = w.id)
+                """;
+            using var r = command.ExecuteReader();
+            var list = new List<RunWaferVerdict>();
+            while (r.Read())
+            {
+                list.Add(new RunWaferVerdict(r.GetInt64(0), r.GetString(1), r.GetString(2)));
+            }
+            return list;
+        }, cancellationToken);
+
+    /// <inheritdoc />
     public Task<ModelFitRecord> SaveModelFitAsync(ModelFitRecord fit, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(fit);

@@ -12,18 +12,12 @@ public sealed partial class StoreWaferData
     public async Task<IReadOnlyDictionary<long, string>> GetRunVerdictsAsync(CancellationToken cancellationToken)
     {
         var worst = new Dictionary<long, int>();
-        foreach (WaferRecord wafer in await wafers.ListWafersAsync(10_000, cancellationToken).ConfigureAwait(false))
+        foreach (RunWaferVerdict v in await wafers.GetLatestRunVerdictsAsync(cancellationToken).ConfigureAwait(false))
         {
-            if (wafer.RunId is not { } runId)
+            int rank = Array.IndexOf(VerdictOrder, v.Verdict.ToLowerInvariant());
+            if (rank >= 0 && (!worst.TryGetValue(v.RunId, out int current) || rank > current))
             {
-                continue;
-            }
-            var reports = await wafers.GetReportsAsync(wafer.Name, cancellationToken).ConfigureAwait(false);
-            WaferReportRecord? latest = reports.MaxBy(r => r.CreatedAt);
-            int rank = latest is null ? -1 : Array.IndexOf(VerdictOrder, latest.Verdict.ToLowerInvariant());
-            if (rank >= 0 && (!worst.TryGetValue(runId, out int current) || rank > current))
-            {
-                worst[runId] = rank;
+                worst[v.RunId] = rank;
             }
         }
         return worst.ToDictionary(p => p.Key, p => VerdictOrder[p.Value].ToUpperInvariant());
@@ -64,14 +58,13 @@ public sealed partial class StoreWaferData
     }
 
     /// <summary>Mean Clark–Evans R over the wafer's analysed fields (each field's own R), NaN when none has one.</summary>
-    private async Task<double> MeanClarkEvansAsync(IReadOnlyList<FieldRecord> fields, CancellationToken cancellationToken)
+    private static double MeanClarkEvans(IReadOnlyList<AnalysisRecord> analyses)
     {
         double sum = 0;
         int n = 0;
-        foreach (FieldRecord f in fields)
+        foreach (AnalysisRecord a in analyses)
         {
-            AnalysisRecord? a = await wafers.GetLatestAnalysisAsync(f.Id, cancellationToken).ConfigureAwait(false);
-            if (a?.ResultsJson is not { } results)
+            if (a.ResultsJson is not { } results)
             {
                 continue;
             }

@@ -20,9 +20,14 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         RunRecord? run = await wafers.FindRunOfWaferAsync(waferId, cancellationToken).ConfigureAwait(false);
         var fields = new List<FieldView>();
         IReadOnlyList<FieldRecord> fieldRecords = await wafers.GetFieldsOfWaferAsync(waferId, cancellationToken).ConfigureAwait(false);
+        var analyses = new List<AnalysisRecord>();
         foreach (FieldRecord f in fieldRecords)
         {
             AnalysisRecord? a = await wafers.GetLatestAnalysisAsync(f.Id, cancellationToken).ConfigureAwait(false);
+            if (a is not null)
+            {
+                analyses.Add(a);
+            }
             fields.Add(new FieldView(f.Id.ToString(CultureInfo.InvariantCulture), f.RelativePath, f.ImportedAt, f.NmPerPx ?? double.NaN, a?.WireCount ?? 0));
         }
         var reports = await wafers.GetReportsAsync(waferId, cancellationToken).ConfigureAwait(false);
@@ -39,7 +44,7 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         {
             statistics = statistics with
             {
-                ClarkEvansR = await MeanClarkEvansAsync(fieldRecords, cancellationToken).ConfigureAwait(false),
+                ClarkEvansR = MeanClarkEvans(analyses),
                 MeanNormalisedCaptureArea = MeanNormalisedArea(wires),
             };
         }
