@@ -27,6 +27,7 @@ public static class StorageServiceCollectionExtensions
         services.TryAddSingleton<SqliteRunWatchStore>();
         services.TryAddSingleton<IRunWatchStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
         services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+        services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
         services.TryAddSingleton<QcSpecificationCatalog>();
         return services;
     }

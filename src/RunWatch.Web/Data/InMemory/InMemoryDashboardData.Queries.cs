@@ -138,6 +138,7 @@ public sealed partial class InMemoryDashboardData
     {
         var c = _chambers[name];
         var latest = new Dictionary<string, double>(StringComparer.Ordinal);
+        var latestTimes = new Dictionary<string, DateTimeOffset>(StringComparer.Ordinal);
         DateTimeOffset? lastAt = null;
         foreach (var ((chamber, channel), buffer) in _samples)
         {
@@ -147,6 +148,7 @@ public sealed partial class InMemoryDashboardData
             }
             latest[channel] = point.Value;
             var at = DateTimeOffset.FromUnixTimeMilliseconds((long)Math.Round(point.Time * 1000));
+            latestTimes[channel] = at;
             if (lastAt is null || at > lastAt)
             {
                 lastAt = at;
@@ -164,6 +166,7 @@ public sealed partial class InMemoryDashboardData
             LastRunEndedAt = lastEnded,
             OpenAlerts = open,
             LatestValues = latest,
+            LatestTimes = latestTimes,
         };
     }
 }

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using RunWatch.Core.Safety;
 
 namespace RunWatch.Web.Data.InMemory;
 
@@ -24,10 +25,19 @@ public static class InventedLabScenario
     {
         ArgumentNullException.ThrowIfNull(data);
         var bands = new TemperatureBands(3, 8);
+        // Both invented chambers map three reminder roles; hydride flow, bake-out and the electron gun have no channel
+        // here, so their reminders show as "not watched on this chamber".
+        var roles = new Dictionary<ReminderChannelRole, string>
+        {
+            [ReminderChannelRole.GrowthTemperature] = TemperatureChannel,
+            [ReminderChannelRole.ArsenicSourceTemperature] = "as_cell_tc",
+            [ReminderChannelRole.CryopanelFill] = "ln2_fill",
+        };
+        string[] channels = [TemperatureChannel, SetpointChannel, "as_cell_tc", "ga_shutter", "ln2_fill"];
         data.AddChamber(new ChamberStatus(GrowingChamber, "invented lab", null, null, TemperatureChannel, SetpointChannel, "°C", null, null, null, 0,
-            new Dictionary<string, double>(), bands));
+            new Dictionary<string, double>(), bands, ConfiguredRoles: roles, Channels: channels));
         data.AddChamber(new ChamberStatus(IdleChamber, "invented lab", null, null, TemperatureChannel, SetpointChannel, "°C", null, null, null, 0,
-            new Dictionary<string, double>(), bands));
+            new Dictionary<string, double>(), bands, ConfiguredRoles: roles, Channels: channels));
 
         // Ended run: ramp up, growth at 610 °C with one excursion, cool-down; it ends 40 min before now.
         var endedEnd = now.AddMinutes(-40);

@@ -262,6 +262,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
     {
         var now = time.GetUtcNow();
         var latest = new Dictionary<string, double>(StringComparer.Ordinal);
+        var latestTimes = new Dictionary<string, DateTimeOffset>(StringComparer.Ordinal);
         DateTimeOffset? lastAt = null;
         foreach (var channel in chamber.Channels)
         {
@@ -273,6 +274,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
                 continue;
             }
             latest[channel.Definition.Name] = rows[^1].Value;
+            latestTimes[channel.Definition.Name] = rows[^1].Timestamp;
             if (lastAt is null || rows[^1].Timestamp > lastAt)
             {
                 lastAt = rows[^1].Timestamp;
@@ -290,7 +292,22 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             latest.TryGetValue(setpoint, out double sp) ? sp : open?.SetpointC,
             temperature, setpoint, "°C", lastAt, open is null ? null : ToSummary(open), lastEnded,
             active.Count(a => a.Chamber == chamber.Definition.Name), latest,
-            bands?.BandsFor(chamber.Definition.Name) ?? new TemperatureBands(options.Value.WarningBandK, options.Value.AlarmBandK));
+            bands?.BandsFor(chamber.Definition.Name) ?? new TemperatureBands(options.Value.WarningBandK, options.Value.AlarmBandK),
+            latestTimes, ReminderRoles(defs), [.. defs.Select(d => d.Name)]);
+    }
+
+    /// <summary>The configured channel of each channel role that a reminder reads (same names in both enums).</summary>
+    private static Dictionary<Core.Safety.ReminderChannelRole, string> ReminderRoles(IEnumerable<ChannelDefinition> channels)
+    {
+        var roles = new Dictionary<Core.Safety.ReminderChannelRole, string>();
+        foreach (var channel in channels)
+        {
+            if (channel.Role != ChannelRole.Other && Enum.TryParse(channel.Role.ToString(), out Core.Safety.ReminderChannelRole role))
+            {
+                roles.TryAdd(role, channel.Name);
+            }
+        }
+        return roles;
     }
 
     private static RunSummary ToSummary(RunRecord r)
