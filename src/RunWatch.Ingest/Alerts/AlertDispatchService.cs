@@ -41,7 +41,7 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
     public async Task<bool> AcknowledgeAsync(long alertId, string user, CancellationToken cancellationToken)
     {
         var alert = await _store.GetAlertAsync(alertId, cancellationToken).ConfigureAwait(false);
-        if (alert is null || alert.State is AlertState.Normal or AlertState.Acknowledged)
+        if (alert is null || alert.State is AlertState.Normal or AlertState.Acknowledged or AlertState.Suppressed)
         {
             return false;
         }
@@ -60,7 +60,8 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
     public async Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, CancellationToken cancellationToken)
     {
         var alert = await _store.GetAlertAsync(alertId, cancellationToken).ConfigureAwait(false);
-        if (alert is null || alert.Chamber is null || alert.State == AlertState.Normal)
+        // Shelving is an operator's choice for a raised alert; a condition suppressed by design is not raised.
+        if (alert is null || alert.Chamber is null || alert.State is AlertState.Normal or AlertState.Suppressed)
         {
             return false;
         }
@@ -113,9 +114,13 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
                 {
                     notification = notification with { Alert = withId };
                 }
-                foreach (var (_, queue) in queues)
+                // A condition suppressed by design is recorded in the store only: it is never raised to the sinks.
+                if (notification.Change is not (AlertBook.SuppressedChange or AlertBook.SuppressionEndedChange))
                 {
-                    queue.Writer.TryWrite(notification);
+                    foreach (var (_, queue) in queues)
+                    {
+                        queue.Writer.TryWrite(notification);
+                    }
                 }
                 _metrics.AlertsActive.Set(ActiveCount());
             }
@@ -135,7 +140,7 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
     {
         lock (_bookGate)
         {
-            return _book.Current.Count;
+            return _book.Current.Values.Count(a => a.State != AlertState.Suppressed);
         }
     }
 

@@ -54,7 +54,7 @@ internal sealed class RunEvaluator(IRunWatchStore store)
         var trueC = new double[times.Length];
         var setpointAt = new double[times.Length];
         SetpointsAtSamples(record, calibration, setpoints, origin, run.SetpointC, trueC, setpointAt);
-        var excursions = Replay(chamber, record, trueC, setpointAt, diffusivity);
+        var excursions = Replay(chamber, record, trueC, setpointAt, diffusivity, window);
         double c = chamber.Options.DiffusionLength.ConventionFactor;
         double maxGapS = chamber.Options.Excursions.MaxGap.TotalSeconds;
         var excursionJson = new List<RunExcursionJson>(excursions.Count);
@@ -67,7 +67,8 @@ internal sealed class RunEvaluator(IRunWatchStore store)
             double leadInS = first > 0 ? times[first - 1] : e.StartS;
             double excess = ExcursionWindowEffect.ExcessIntegralCmSq(times, trueC, setpointAt, leadInS, e.EndS, window.StartS, window.EndS, diffusivity, maxGapS);
             excursionJson.Add(new RunExcursionJson(origin.AddSeconds(e.StartS), origin.AddSeconds(e.EndS), e.DurationS, e.PeakDeviationK, e.PeakValueC,
-                e.Severity.ToString(), Finite(DiffusionLength.LengthChangeUm(result.IntegralCmSq, excess, c) * 1000.0), e.Closed, inWindow));
+                e.Severity.ToString(), Finite(DiffusionLength.LengthChangeUm(result.IntegralCmSq, excess, c) * 1000.0), e.Closed, inWindow,
+                e.SuppressedByDesign));
         }
         var summary = new RunSummaryJson(c, result.IntegralCmSq, result.CoveredS, window.StartS, window.EndS, result.Gaps.Count, result.IsComplete,
             Finite(result.LogSensitivityPerK), readings.Count, plan is not null, null);
@@ -130,7 +131,8 @@ internal sealed class RunEvaluator(IRunWatchStore store)
         }
     }
 
-    private static List<ExcursionSummary> Replay(ChamberRuntime chamber, ThermalRecord record, double[] trueC, double[] setpointAt, ArrheniusDiffusivity diffusivity)
+    private static List<ExcursionSummary> Replay(ChamberRuntime chamber, ThermalRecord record, double[] trueC, double[] setpointAt, ArrheniusDiffusivity diffusivity,
+        GrowthWindow window)
     {
         var collector = new ExcursionCollector();
         var monitor = new ExcursionMonitor(chamber.Options.Excursions, diffusivity, collector);
@@ -138,6 +140,8 @@ internal sealed class RunEvaluator(IRunWatchStore store)
         monitor.BeginRun(times[0]);
         for (int i = 0; i < times.Length; i++)
         {
+            // As live: the growth window is the Growth state, where deviation alarms are never suppressed.
+            monitor.SetGrowth(times[i] >= window.StartS && times[i] < window.EndS, times[i]);
             monitor.Observe(times[i], trueC[i], setpointAt[i]);
         }
         monitor.EndRun(times[^1]);

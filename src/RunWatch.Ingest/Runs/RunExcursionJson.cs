@@ -10,5 +10,6 @@ namespace RunWatch.Ingest.Runs;
 /// <param name="LengthChangeNm">Its effect on L_eff, nm (L_eff actual minus L_eff with the part of the excursion inside the growth window at the setpoint; 0 outside it).</param>
 /// <param name="Closed">False when the run ended during the excursion.</param>
 /// <param name="InGrowthWindow">Whether any of it falls inside the growth window (only that part changes L_eff).</param>
+/// <param name="SuppressedByDesign">Whether it fell wholly on a ramp towards a new setpoint, where deviation alarms are suppressed by design (recorded, not counted).</param>
 internal sealed record RunExcursionJson(DateTimeOffset Start, DateTimeOffset End, double DurationS, double PeakDeviationK, double PeakValueC, string Severity,
-    double? LengthChangeNm, bool Closed, bool InGrowthWindow);
+    double? LengthChangeNm, bool Closed, bool InGrowthWindow, bool SuppressedByDesign = false);

@@ -89,6 +89,9 @@ public static class InventedLabScenario
             AlertState.ActiveAcknowledged, now.AddMinutes(-15), null, "demo-engineer", "cell re-tuned, watching", null, null));
         data.AddAlert(new AlertView("A-0105", GrowingChamber, "R-2029", "Telemetry gap of 12 s", AlertSeverity.Warning,
             AlertState.Normal, now.AddDays(-1).AddHours(-1), now.AddDays(-1).AddHours(-1).AddSeconds(12), "demo-engineer", "gateway restart", null, null));
+        // The heating ramp of the active run: a deviation recorded while suppressed by design, never raised.
+        data.AddAlert(new AlertView("A-0108", GrowingChamber, ActiveRun, "Deviation beyond the alarm band (412.0 °C, setpoint 610.0 °C)", AlertSeverity.Alarm,
+            AlertState.Normal, now.AddMinutes(-25), now.AddMinutes(-21), null, null, null, null, WasSuppressed: true));
         data.AddSpec(new SpecEntry("mean radius", 30, 45, "nm"));
         data.AddSpec(new SpecEntry("radius CV", null, 0.2, "fraction", Sides: SpecSides.Upper));
         data.AddSpec(new SpecEntry("density", 0.5, 3, "µm⁻²"));

@@ -124,7 +124,8 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
                 return new AlertView(id, a.Chamber ?? "daemon",
                     a.RunId is { } r && runs.TryGetValue(r, out var name) ? name : null, a.Message,
                     a.Severity == Storage.AlertSeverity.High ? AlertSeverity.Alarm : AlertSeverity.Warning, Map(a.State), a.RaisedAt, a.ClearedAt,
-                    a.AcknowledgedBy, comments.TryGetValue(CommentSubject + id, out string? comment) ? comment : null, null, null);
+                    a.AcknowledgedBy, comments.TryGetValue(CommentSubject + id, out string? comment) ? comment : null, null, null,
+                    a.DetailJson is { } detail && detail.Contains("\"suppressedByDesign\":true", StringComparison.Ordinal));
             })
             .ToList();
     }
@@ -291,7 +292,9 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             latest.TryGetValue(temperature, out double t) ? t : null,
             latest.TryGetValue(setpoint, out double sp) ? sp : open?.SetpointC,
             temperature, setpoint, "°C", lastAt, open is null ? null : ToSummary(open), lastEnded,
-            active.Count(a => a.Chamber == chamber.Definition.Name), latest,
+            // Open means raised and not over: shelved alerts and conditions suppressed by design are not open.
+            active.Count(a => a.Chamber == chamber.Definition.Name
+                && a.State is StoredAlertState.Unacknowledged or StoredAlertState.Acknowledged or StoredAlertState.ReturnedUnacknowledged), latest,
             bands?.BandsFor(chamber.Definition.Name) ?? new TemperatureBands(options.Value.WarningBandK, options.Value.AlarmBandK),
             latestTimes, ReminderRoles(defs), [.. defs.Select(d => d.Name)]);
     }
@@ -324,8 +327,14 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         int excursions = 0;
         if (r.ExcursionsJson is { Length: > 0 } ex)
         {
+            // The runs table counts the excursions that matter: inside the growth window and not on a ramp (suppressed by design).
             using var doc = JsonDocument.Parse(ex);
-            excursions = doc.RootElement.GetArrayLength();
+            foreach (var e in doc.RootElement.EnumerateArray())
+            {
+                bool outside = e.TryGetProperty("inGrowthWindow", out var w) && w.ValueKind == JsonValueKind.False;
+                bool suppressed = e.TryGetProperty("suppressedByDesign", out var sup) && sup.ValueKind == JsonValueKind.True;
+                excursions += outside || suppressed ? 0 : 1;
+            }
         }
         return new RunSummary(r.Name, r.Chamber, r.Recipe ?? "—", r.StartedAt, r.EndedAt, r.SetpointC ?? double.NaN,
             TimeSpan.FromSeconds(r.PlannedSeconds ?? 0), window, r.Wafers, excursions, null);
@@ -357,7 +366,8 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
                 e.GetProperty("peakDeviationK").GetDouble(),
                 severity.Contains("alarm", StringComparison.OrdinalIgnoreCase) ? AlertSeverity.Alarm : AlertSeverity.Warning,
                 lEffNm is { } l && l > 0 ? changeNm / l * 100 : double.NaN,
-                !e.TryGetProperty("inGrowthWindow", out var inWindow) || inWindow.ValueKind != JsonValueKind.False));
+                !e.TryGetProperty("inGrowthWindow", out var inWindow) || inWindow.ValueKind != JsonValueKind.False,
+                e.TryGetProperty("suppressedByDesign", out var suppressed) && suppressed.ValueKind == JsonValueKind.True));
         }
         return list;
     }
@@ -368,6 +378,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         StoredAlertState.Acknowledged => Data.AlertState.ActiveAcknowledged,
         StoredAlertState.ReturnedUnacknowledged => Data.AlertState.ReturnedUnacknowledged,
         StoredAlertState.Shelved => Data.AlertState.Shelved,
+        StoredAlertState.Suppressed => Data.AlertState.Suppressed,
         _ => Data.AlertState.Normal,
     };
 
