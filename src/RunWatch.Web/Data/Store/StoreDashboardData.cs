@@ -159,22 +159,22 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
     public async Task AcknowledgeAlertAsync(string alertId, string user, string comment, CancellationToken cancellationToken)
     {
         long id = ParseId(alertId);
-        if (!await alerts.AcknowledgeAsync(id, user, cancellationToken).ConfigureAwait(false))
+        // One audit entry per acknowledgement: the alert commands write it with the comment in it.
+        if (!await alerts.AcknowledgeAsync(id, user, string.IsNullOrWhiteSpace(comment) ? null : comment, cancellationToken).ConfigureAwait(false))
         {
             throw new InvalidOperationException($"Alert {alertId} is unknown or has nothing to acknowledge.");
         }
-        await RecordCommentAsync(user, "alert acknowledged", alertId, comment, cancellationToken).ConfigureAwait(false);
     }
 
     public async Task ShelveAlertAsync(string alertId, string user, string comment, DateTimeOffset until, CancellationToken cancellationToken)
     {
         long id = ParseId(alertId);
         var duration = until - time.GetUtcNow();
-        if (duration <= TimeSpan.Zero || !await alerts.ShelveAsync(id, duration, user, cancellationToken).ConfigureAwait(false))
+        if (duration <= TimeSpan.Zero
+            || !await alerts.ShelveAsync(id, duration, user, string.IsNullOrWhiteSpace(comment) ? null : comment, cancellationToken).ConfigureAwait(false))
         {
             throw new InvalidOperationException($"Alert {alertId} is unknown, already normal, or the shelf would not expire in the future.");
         }
-        await RecordCommentAsync(user, "alert shelved", alertId, comment, cancellationToken).ConfigureAwait(false);
     }
 
     public async Task AssignFieldAsync(string fieldId, string waferId, string user, CancellationToken cancellationToken)
@@ -234,20 +234,19 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             JsonSerializer.Serialize(new Dictionary<string, string> { ["detail"] = entry.Detail })), cancellationToken);
     }
 
-    private Task RecordCommentAsync(string user, string action, string alertId, string comment, CancellationToken cancellationToken) =>
-        string.IsNullOrWhiteSpace(comment)
-            ? Task.CompletedTask
-            : RecordAuditAsync(new AuditEntry(time.GetUtcNow(), user, action + CommentSuffix, CommentSubject + alertId, comment), cancellationToken);
-
     /// <summary>The newest operator comment per alert, from the audit trail where acknowledging and shelving write it.</summary>
     private async Task<Dictionary<string, string>> AlertCommentsAsync(CancellationToken cancellationToken)
     {
         var comments = new Dictionary<string, string>(StringComparer.Ordinal);
         foreach (var entry in await store.GetAuditAsync(5000, cancellationToken).ConfigureAwait(false))
         {
-            // Newest first: the first comment seen for an alert is its latest.
-            if (entry.Subject is { } subject && subject.StartsWith(CommentSubject, StringComparison.Ordinal)
-                && entry.Action.EndsWith(CommentSuffix, StringComparison.Ordinal) && !comments.ContainsKey(subject) && entry.DetailJson is { } json)
+            // Newest first: the first comment seen for an alert is its latest. The alert commands write it with the
+            // action ("alert-acknowledged", subject the alert id); older stores have a separate "(comment)" entry.
+            string? subject = entry.Subject is null ? null
+                : entry.Action is "alert-acknowledged" or "alert-shelved" ? CommentSubject + entry.Subject
+                : entry.Subject.StartsWith(CommentSubject, StringComparison.Ordinal) && entry.Action.EndsWith(CommentSuffix, StringComparison.Ordinal) ? entry.Subject
+                : null;
+            if (subject is not null && !comments.ContainsKey(subject) && entry.DetailJson is { } json)
             {
                 using var doc = JsonDocument.Parse(json);
                 if (doc.RootElement.ValueKind == JsonValueKind.Object && doc.RootElement.TryGetProperty("detail", out var detail) && detail.GetString() is { } text)
