@@ -1,4 +1,4 @@
-namespace RunWatch.Ingest.Pipeline;
+namespace RunWatch.Ingest.Chambers;
 
 /// <summary>Holds the chamber registry once the store is migrated and the chambers are registered (at host start).</summary>
 internal sealed class ChamberRegistryHolder

@@ -1,4 +1,4 @@
-namespace RunWatch.Ingest.Alerts;
+namespace RunWatch.Ingest.Pipeline;
 
 /// <summary>Daemon-wide conditions that become alerts (raised once, cleared when they end).</summary>
 internal interface IDaemonConditions

@@ -3,7 +3,7 @@ using RunWatch.Ingest.Configuration;
 using RunWatch.Core.Thermal;
 using RunWatch.Storage;
 
-namespace RunWatch.Ingest.Pipeline;
+namespace RunWatch.Ingest.Chambers;
 
 /// <summary>A configured channel with its store id and its UTF-8 name for allocation-free matching in payloads.</summary>
 internal sealed class ChannelRuntime

@@ -1,4 +1,4 @@
-namespace RunWatch.Ingest.Parsing;
+namespace RunWatch.Ingest.Chambers;
 
 /// <summary>A parsed event, handed to the run tracker after its batch is committed.</summary>
 /// <param name="ChamberId">Store id of the chamber.</param>

@@ -1,7 +1,7 @@
 using RunWatch.Ingest.Configuration;
 using RunWatch.Storage;
 
-namespace RunWatch.Ingest.Pipeline;
+namespace RunWatch.Ingest.Chambers;
 
 /// <summary>The configured chambers after registration in the store; looked up by topic segments without allocating.</summary>
 internal sealed class ChamberRegistry

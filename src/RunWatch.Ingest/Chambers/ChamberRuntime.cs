@@ -1,7 +1,7 @@
 using RunWatch.Ingest.Configuration;
 using RunWatch.Storage;
 
-namespace RunWatch.Ingest.Pipeline;
+namespace RunWatch.Ingest.Chambers;
 
 /// <summary>A configured chamber with store ids and fast channel lookup.</summary>
 internal sealed class ChamberRuntime
