@@ -2,7 +2,7 @@ using Microsoft.Extensions.Hosting;
 using RunWatch.Storage;
 using RunWatch.Web.Safety;
 
-namespace RunWatch.Web.Data.Store;
+namespace RunWatch.Web.Hosting;
 
 /// <summary>
 /// At host start, after the store is migrated: seeds the QC specifications and reminder settings from configuration
