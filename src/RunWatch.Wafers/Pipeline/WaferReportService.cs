@@ -18,15 +18,6 @@ namespace RunWatch.Wafers.Pipeline;
 /// </summary>
 public sealed class WaferReportService
 {
-    /// <summary>Model name under which radius models are stored per process.</summary>
-    public const string RadiusModelName = "radius";
-
-    /// <summary>Model name of a wafer's best-fit capture radius, one point of the Arrhenius calibration.</summary>
-    public const string CaptureRadiusModelName = "capture-radius";
-
-    /// <summary>Model name of a process's Arrhenius calibration (Ea, D0).</summary>
-    public const string ArrheniusModelName = "arrhenius";
-
     private readonly IRunWatchStore _store;
     private readonly IWaferStore _wafers;
     private readonly WaferPipelineOptions _options;
@@ -115,7 +106,7 @@ public sealed class WaferReportService
             await _wafers.SaveModelFitAsync(new ModelFitRecord
             {
                 Process = process,
-                Model = RadiusModelName,
+                Model = ModelKinds.Radius,
                 FittedAt = _time.GetUtcNow(),
                 ParamsJson = ModelJson.Serialize(evaluation.Model),
                 RSquared = evaluation.Model.RSquared,
@@ -132,7 +123,7 @@ public sealed class WaferReportService
             await _wafers.SaveModelFitAsync(new ModelFitRecord
             {
                 Process = process,
-                Model = CaptureRadiusModelName,
+                Model = ModelKinds.CaptureRadius,
                 FittedAt = _time.GetUtcNow(),
                 ParamsJson = ModelJson.Serialize(point),
                 RSquared = best.Fit.RSquared,
@@ -188,7 +179,7 @@ public sealed class WaferReportService
 
     private async Task<RadiusModelFit?> AcceptedModelAsync(string process, CancellationToken cancellationToken)
     {
-        foreach (ModelFitRecord fit in await _wafers.GetModelFitsAsync(process, RadiusModelName, 50, cancellationToken).ConfigureAwait(false))
+        foreach (ModelFitRecord fit in await _wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false))
         {
             if (fit.AcceptedAt is not null)
             {

@@ -46,7 +46,7 @@ internal static class StoredWafers
             await store.SaveModelFitAsync(new ModelFitRecord
             {
                 Process = process,
-                Model = WaferReportService.CaptureRadiusModelName,
+                Model = ModelKinds.CaptureRadius,
                 FittedAt = DateTimeOffset.UnixEpoch,
                 ParamsJson = ModelJson.Serialize(capture),
                 Wafers = [wafer],

@@ -112,7 +112,7 @@ public sealed class WaferPipelineTests : IAsyncLifetime
             Assert.True(File.ReadAllLines(outcome.Files["csv"]).Length > 50, "every wire in the CSV");
         }
         // The run's recipe has no accepted model: the first report proposes one, never accepts it.
-        var fits = await _store.GetModelFitsAsync("invented-recipe", WaferReportService.RadiusModelName, 10, default);
+        var fits = await _store.GetModelFitsAsync("invented-recipe", ModelKinds.Radius, 10, default);
         Assert.NotEmpty(fits);
         Assert.All(fits, f => Assert.Null(f.AcceptedBy));
     }
