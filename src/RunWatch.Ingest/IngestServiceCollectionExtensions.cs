@@ -84,6 +84,7 @@ public static partial class IngestServiceCollectionExtensions
         services.AddSingleton<IDaemonConditions>(sp => sp.GetRequiredService<AlertEngine>());
         services.AddSingleton<IRunLifecycleListener>(sp => sp.GetRequiredService<AlertEngine>());
         services.TryAddSingleton<RunTracker>();
+        services.TryAddSingleton<IRunDiffusivity, ConfiguredRunDiffusivity>();
         services.TryAddSingleton<RunEvaluator>();
         services.TryAddSingleton<AlertDispatchService>();
         services.TryAddSingleton<IAlertCommands>(sp => sp.GetRequiredService<AlertDispatchService>());
