@@ -69,7 +69,7 @@ public static class InventedLabScenario
 
         data.AddRun(new RunDetail(
             new RunSummary(EndedRun, IdleChamber, "nw-gaas-std", endedStart, endedEnd, 610, growthEnd - growthStart,
-                new GrowthWindow(growthStart, growthEnd), [Wafer], 1, "review"),
+                new GrowthWindow(growthStart, growthEnd), [Wafer], 1, "review", LEffNm: 418.6),
             new ThermalResult(LNomNm: 412.0, LEffNm: 418.6, TEffC: 611.1, ConventionFactor: 1, CoveragePercent: 99.8, D0CmSquaredPerSecond: 2.5e-5, ActivationEnergyEv: 1.3),
             [new ExcursionView(excursionStart, excursionEnd, 9.0, AlertSeverity.Alarm, 1.1)],
             new RadiusPrediction(38.5, 6.2, 28.3, 48.7), TemperatureChannel));
@@ -79,7 +79,7 @@ public static class InventedLabScenario
             null, [], new RadiusPrediction(37.9, 6.0, 28.0, 47.8), TemperatureChannel));
         data.AddRun(new RunDetail(
             new RunSummary("R-2029", IdleChamber, "nw-gaas-thin", now.AddDays(-1).AddHours(-2), now.AddDays(-1), 590, TimeSpan.FromMinutes(45),
-                new GrowthWindow(now.AddDays(-1).AddHours(-1.5), now.AddDays(-1).AddHours(-0.75)), ["W-2029-A"], 0, "pass"),
+                new GrowthWindow(now.AddDays(-1).AddHours(-1.5), now.AddDays(-1).AddHours(-0.75)), ["W-2029-A"], 0, "pass", LEffNm: 299.1),
             new ThermalResult(300.2, 299.1, 589.7, 1, 100, 2.5e-5, 1.3), [], new RadiusPrediction(28.0, 4.1, 21.3, 34.7), TemperatureChannel));
 
         SeedWafer(data, now);

@@ -319,7 +319,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             : null;
         return new RunSummary(r.Name, r.Chamber, r.Recipe ?? "—", r.StartedAt, r.EndedAt, r.SetpointC ?? double.NaN,
             // The runs table counts the excursions that matter: inside the growth window and not on a ramp (suppressed by design).
-            TimeSpan.FromSeconds(r.PlannedSeconds ?? 0), window, r.Wafers, r.Excursions?.Count(e => e.InGrowthWindow && !e.SuppressedByDesign) ?? 0, null);
+            TimeSpan.FromSeconds(r.PlannedSeconds ?? 0), window, r.Wafers, r.Excursions?.Count(e => e.InGrowthWindow && !e.SuppressedByDesign) ?? 0, null, r.LEffNm);
     }
 
     private static List<ExcursionView> Excursions(IReadOnlyList<RunExcursionRecord>? excursions, double? lEffNm)
