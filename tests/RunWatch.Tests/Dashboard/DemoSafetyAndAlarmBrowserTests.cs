@@ -138,6 +138,24 @@ public sealed partial class DemoSafetyAndAlarmBrowserTests(DemoFixture demo, ITe
         await page.CloseAsync();
     }
 
+    [Fact]
+    public async Task WaferPage_DemoWafer_EveryRuleListedWithOutcomeAndPredictionSummary()
+    {
+        await demo.WaitAllReportedAsync();
+        var page = await demo.LoginAsync("engineer");
+        await page.GotoAsync(demo.BaseUrl + "/wafers/W-DEMO-01-A");
+        var rules = page.Locator("[data-testid=verdict-rule]");
+        await Assertions.Expect(rules.First).ToBeVisibleAsync(Soon);
+        int count = await rules.CountAsync();
+        int passed = await page.Locator("[data-testid=verdict-rule]:has([data-state=normal])").CountAsync();
+        output.WriteLine($"W-DEMO-01-A: {count} rules on screen, {passed} passed");
+        // The report judges every rule of the recipe's specification (at least the nine of docs/verdict.md), passed ones included.
+        Assert.True(count >= 9, $"{count} rules");
+        await Assertions.Expect(page.Locator("[data-testid=prediction-summary]")).ToBeVisibleAsync();
+        await demo.ScreenshotAsync(page, "wafer-rules");
+        await page.CloseAsync();
+    }
+
     private static async Task PublishAsync(IMqttClient client, double celsius)
     {
         string payload = string.Create(CultureInfo.InvariantCulture,

@@ -119,7 +119,14 @@ public static class InventedLabScenario
             data.AddFieldImage(id, true, FieldSvg(f, true));
         }
         data.AddWafer(new WaferDetail(Wafer, EndedRun, fields, new WaferStatistics(240, 1.42, 38.9, 6.8, 1.18, 0.71), wires,
-            new VerdictView(VerdictOutcome.Review, ["an alarm excursion of 9.0 K lasted 3 min during growth (effect on L_eff +1.1 %)", "mean radius 38.9 nm within spec 30–45 nm", "radius CV 0.17 within spec ≤ 0.2"], now.AddMinutes(-10)),
+            new VerdictView(VerdictOutcome.Review, ["an alarm excursion of 9.0 K lasted 3 min during growth (effect on L_eff +1.1 %)", "mean radius 38.9 nm within spec 30–45 nm", "radius CV 0.17 within spec ≤ 0.2"], now.AddMinutes(-10),
+                [
+                    new VerdictRuleView("mean radius", 38.9, "30–45", "33–42", "nm", VerdictOutcome.Pass, "38.9 nm within 30–45 nm"),
+                    new VerdictRuleView("radius CV", 0.17, "≤ 0.2", "≤ 0.18", "fraction", VerdictOutcome.Pass, "0.17 within ≤ 0.2"),
+                    new VerdictRuleView("excursions in growth window", 1, "≤ 2", "≤ 0", "count", VerdictOutcome.Review, "one alarm excursion of 9.0 K during growth"),
+                    new VerdictRuleView("|prediction bias|", null, "≤ 4", "≤ 2", "nm", VerdictOutcome.Review, "not measured: no accepted radius model for this process yet"),
+                ],
+                new PredictionAgreement(240, 0.8, 3.1, 0.71, 2.4)),
             ["html", "csv", "json"]));
         string csv = "wire,radius_nm,capture_area_norm,predicted_nm\n" + string.Join('\n', wires.Select((w, i) =>
             string.Create(CultureInfo.InvariantCulture, $"{i + 1},{w.RadiusNm:F2},{w.NormalisedCaptureArea:F4},{w.PredictedRadiusNm:F2}"))) + "\n";

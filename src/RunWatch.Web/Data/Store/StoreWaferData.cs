@@ -126,6 +126,10 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         return [.. processes];
     }
 
+    private static VerdictOutcome Outcome(string? name) => name switch { "Pass" => VerdictOutcome.Pass, "Fail" => VerdictOutcome.Fail, _ => VerdictOutcome.Review };
+
+    private static string Text(JsonElement e, string name) => e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.String ? v.GetString() ?? "" : "";
+
     private static (WaferStatistics?, VerdictView?) ReadSummary(string json, DateTimeOffset at)
     {
         using var doc = JsonDocument.Parse(json);
@@ -140,6 +144,7 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         {
             var outcome = v.TryGetProperty("outcome", out JsonElement o) ? o.GetString() : null;
             var reasons = new List<string>();
+            var all = new List<VerdictRuleView>();
             if (v.TryGetProperty("rules", out JsonElement rules) && rules.ValueKind == JsonValueKind.Array)
             {
                 foreach (JsonElement rule in rules.EnumerateArray())
@@ -148,9 +153,17 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
                     {
                         reasons.Add($"{ro.GetString()!.ToLowerInvariant()}: {reason.GetString()}");
                     }
+                    // Every rule, passed ones included, with what was measured and the limits it was held to.
+                    all.Add(new VerdictRuleView(Text(rule, "rule"), rule.TryGetProperty("measured", out JsonElement m) && m.ValueKind == JsonValueKind.Number ? m.GetDouble() : null,
+                        Text(rule, "limit"), Text(rule, "warnLimit"), Text(rule, "unit"), Outcome(Text(rule, "outcome")), Text(rule, "reason")));
                 }
             }
-            verdict = new VerdictView(outcome switch { "Pass" => VerdictOutcome.Pass, "Fail" => VerdictOutcome.Fail, _ => VerdictOutcome.Review }, reasons, at);
+            PredictionAgreement? agreement = null;
+            if (root.TryGetProperty("comparison", out JsonElement c) && c.ValueKind == JsonValueKind.Object)
+            {
+                agreement = new PredictionAgreement((int)Get(c, "count"), Get(c, "biasNm"), Get(c, "rmseNm"), Get(c, "rSquared"), Get(c, "meanAbsoluteErrorNm"));
+            }
+            verdict = new VerdictView(Outcome(outcome), reasons, at, all, agreement);
         }
         return (statistics, verdict);
     }
