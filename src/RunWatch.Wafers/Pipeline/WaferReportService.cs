@@ -7,6 +7,7 @@ using RunWatch.Core.Excursions;
 using RunWatch.Core.Model;
 using RunWatch.Core.Qc;
 using RunWatch.Core.Thermal;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports;
 using RunWatch.Reports.Model;
 using RunWatch.Storage;
