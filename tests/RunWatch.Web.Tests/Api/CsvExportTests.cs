@@ -2,7 +2,7 @@ using System.Globalization;
 using Microsoft.VisualBasic.FileIO;
 using RunWatch.Web.Api;
 using RunWatch.Web.Data;
-using RunWatch.Web.Data.InMemory;
+using RunWatch.Testing.Dashboard;
 using RunWatch.Web.Tests.Support;
 using Xunit;
 
