@@ -163,7 +163,7 @@ public sealed class WaferReportService
             ["csv"] = written.CsvPath,
             ["json"] = written.JsonPath,
         };
-        string summary = await File.ReadAllTextAsync(written.JsonPath, cancellationToken).ConfigureAwait(false);
+        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, evaluation.Verdict));
         string verdict = evaluation.Verdict.Outcome.ToString().ToLowerInvariant();
         foreach (var (format, path) in files)
         {
