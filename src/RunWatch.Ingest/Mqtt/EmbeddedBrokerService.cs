@@ -41,6 +41,16 @@ internal sealed class EmbeddedBrokerService(IOptions<BrokerOptions> options, ILo
                 return Task.CompletedTask;
             };
         }
+        // MQTTnet's server has no packet size limit of its own: refuse oversize publishes before they are queued for
+        // anyone (the sender's packet has been read once; nothing keeps it).
+        _server.InterceptingPublishAsync += e =>
+        {
+            if (e.ApplicationMessage.Payload.Length > broker.MaximumPacketBytes)
+            {
+                e.ProcessPublish = false;
+            }
+            return Task.CompletedTask;
+        };
         await _server.StartAsync().ConfigureAwait(false);
         Log.EmbeddedStarted(logger, bind.ToString(), broker.Port);
     }
