@@ -2,8 +2,8 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using System.Text.Unicode;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
-using RunWatch.Ingest.Pipeline;
 using RunWatch.Storage;
 
 namespace RunWatch.Ingest.Parsing;
