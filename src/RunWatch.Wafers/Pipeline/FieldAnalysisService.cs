@@ -3,6 +3,7 @@ using System.Text.Json;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
+using RunWatch.Core.Wafers;
 using RunWatch.Imaging.Analysis;
 using RunWatch.Imaging.Decoding;
 using RunWatch.Imaging.Scale;

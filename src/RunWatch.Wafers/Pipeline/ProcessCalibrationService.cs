@@ -1,5 +1,6 @@
 using System.Text.Json;
 using RunWatch.Core.Model;
+using RunWatch.Core.Wafers;
 using RunWatch.Storage;
 
 namespace RunWatch.Wafers.Pipeline;

@@ -6,6 +6,8 @@ using Microsoft.Extensions.Options;
 using RunWatch.Core.Excursions;
 using RunWatch.Core.Model;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Thermal;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports;
 using RunWatch.Reports.Model;
 using RunWatch.Storage;
@@ -118,8 +120,8 @@ public sealed class WaferReportService
         if (evaluation.BestCaptureRadius is { } best && run?.TEffC is { } tEffC)
         {
             // One point of the process's Arrhenius calibration: this wafer's best-fit capture radius at its T_eff.
-            var (windowStart, windowEnd) = RunExcursions.GrowthWindow(run);
-            var point = new ArrheniusPoint(wafer, best.CaptureRadiusNm, windowEnd - windowStart, tEffC + 273.15, RunExcursions.ConventionFactor(run));
+            GrowthWindow window = RunThermalSummary.GrowthWindowOf(run);
+            var point = new ArrheniusPoint(wafer, best.CaptureRadiusNm, window.DurationS, PhysicalConstants.CelsiusToKelvin(tEffC), RunThermalSummary.ConventionFactorOf(run));
             await _wafers.SaveModelFitAsync(new ModelFitRecord
             {
                 Process = process,
@@ -207,10 +209,10 @@ public sealed class WaferReportService
                     temps.Add(s.Value);
                 }
             }
-            (windowStart, windowEnd) = RunExcursions.GrowthWindow(run);
+            (windowStart, windowEnd) = RunThermalSummary.GrowthWindowOf(run);
         }
         return new ThermalSummary(times, temps, run?.SetpointC, windowStart, windowEnd, excursions.Rows,
-            run?.LNomNm ?? double.NaN, run?.LEffNm ?? double.NaN, run?.TEffC ?? double.NaN, RunExcursions.ConventionFactor(run),
+            run?.LNomNm ?? double.NaN, run?.LEffNm ?? double.NaN, run?.TEffC ?? double.NaN, RunThermalSummary.ConventionFactorOf(run),
             run?.Coverage ?? double.NaN, "gaps longer than the configured limit are reported and mark the run incomplete; nothing is interpolated across them");
     }
 

@@ -11,6 +11,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using RunWatch.Core.Model;
 using RunWatch.Core.Safety;
+using RunWatch.Core.Wafers;
 using RunWatch.Hosting;
 using RunWatch.Storage;
 using RunWatch.Testing.Mqtt;

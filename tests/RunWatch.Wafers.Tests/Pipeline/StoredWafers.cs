@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text.Json;
 using RunWatch.Core.Model;
+using RunWatch.Core.Wafers;
 using RunWatch.Wafers.Pipeline;
 using RunWatch.Storage;
 
