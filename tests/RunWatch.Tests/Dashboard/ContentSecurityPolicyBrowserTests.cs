@@ -1,5 +1,5 @@
 using Microsoft.Playwright;
-using RunWatch.Web.Data.InMemory;
+using RunWatch.Testing.Dashboard;
 using Xunit;
 
 namespace RunWatch.Tests.Dashboard;
