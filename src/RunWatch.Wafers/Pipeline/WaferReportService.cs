@@ -203,7 +203,19 @@ public sealed class WaferReportService
 
 
     /// <summary>Folder name for a wafer id: the report writer's safe file name, never a path.</summary>
-    public static string SafeFolderName(string wafer) => RunWatch.Reports.WaferReportWriter.SafeFileName(wafer);
+    public static string SafeFolderName(string wafer)
+    {
+        // An id that is already a safe name keeps it. Any other (".COL", "_COL", "a/b") is reduced and gets "~" and
+        // 16 hex digits of its SHA-256: the reduction is lossy, and "~" never survives it, so two distinct ids never
+        // share a folder (a plain name has no "~"; two reduced ones differ in the hash).
+        string safe = RunWatch.Reports.WaferReportWriter.SafeFileName(wafer);
+        if (string.Equals(safe, wafer, StringComparison.Ordinal))
+        {
+            return safe;
+        }
+        string hash = Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(wafer ?? "")))[..16];
+        return safe + "~" + hash;
+    }
 
     private async Task<RadiusModelFit?> AcceptedModelAsync(string process, CancellationToken cancellationToken)
     {
