@@ -151,7 +151,8 @@ public sealed partial class DemoSafetyAndAlarmBrowserTests(DemoFixture demo, ITe
         output.WriteLine($"W-DEMO-01-A: {count} rules on screen, {passed} passed");
         // The report judges every rule of the recipe's specification (at least the nine of docs/verdict.md), passed ones included.
         Assert.True(count >= 9, $"{count} rules");
-        await Assertions.Expect(page.Locator("[data-testid=prediction-summary]")).ToBeVisibleAsync();
+        // The agreement figures come typed through the report digest (bias, RMSE, MAE, r²).
+        await Assertions.Expect(page.Locator("table[data-testid=prediction-summary] tr")).ToHaveCountAsync(5);
         await demo.ScreenshotAsync(page, "wafer-rules");
         await page.CloseAsync();
     }

@@ -1,5 +1,5 @@
 using System.Globalization;
-using System.Text.Json;
+using RunWatch.Core.Qc;
 using RunWatch.Storage;
 
 namespace RunWatch.Web.Data.Store;
@@ -126,44 +126,34 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         return [.. processes];
     }
 
-    private static VerdictOutcome Outcome(string? name) => name switch { "Pass" => VerdictOutcome.Pass, "Fail" => VerdictOutcome.Fail, _ => VerdictOutcome.Review };
-
-    private static string Text(JsonElement e, string name) => e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.String ? v.GetString() ?? "" : "";
+    private static VerdictOutcome Outcome(QcOutcome outcome) => outcome switch { QcOutcome.Pass => VerdictOutcome.Pass, QcOutcome.Fail => VerdictOutcome.Fail, _ => VerdictOutcome.Review };
 
     private static (WaferStatistics?, VerdictView?) ReadSummary(string json, DateTimeOffset at)
     {
-        using var doc = JsonDocument.Parse(json);
-        JsonElement root = doc.RootElement;
-        WaferStatistics? statistics = null;
-        if (root.TryGetProperty("statistics", out JsonElement s) && s.ValueKind == JsonValueKind.Object)
-        {
-            statistics = new WaferStatistics((int)Get(s, "count"), Get(s, "densityPerCm2") / 1e8, Get(s, "meanRadiusNm"), Get(s, "radiusSdNm"), double.NaN, double.NaN);
-        }
+        WaferReportDigest digest = WaferReportDigestJson.Read(json);
+        WaferStatistics? statistics = digest.Statistics is { } s
+            ? new WaferStatistics(s.Count, s.DensityPerCm2 / 1e8, s.MeanRadiusNm, s.RadiusSdNm, double.NaN, double.NaN)
+            : null;
         VerdictView? verdict = null;
-        if (root.TryGetProperty("verdict", out JsonElement v) && v.ValueKind == JsonValueKind.Object)
+        if (digest.Verdict is { } v)
         {
-            var outcome = v.TryGetProperty("outcome", out JsonElement o) ? o.GetString() : null;
             var reasons = new List<string>();
             var all = new List<VerdictRuleView>();
-            if (v.TryGetProperty("rules", out JsonElement rules) && rules.ValueKind == JsonValueKind.Array)
+            foreach (QcRuleResult rule in v.Rules)
             {
-                foreach (JsonElement rule in rules.EnumerateArray())
+                if (rule.Outcome != QcOutcome.Pass)
                 {
-                    if (rule.TryGetProperty("outcome", out JsonElement ro) && ro.GetString() != "Pass" && rule.TryGetProperty("reason", out JsonElement reason))
-                    {
-                        reasons.Add($"{ro.GetString()!.ToLowerInvariant()}: {reason.GetString()}");
-                    }
-                    // Every rule, passed ones included, with what was measured and the limits it was held to.
-                    all.Add(new VerdictRuleView(Text(rule, "rule"), rule.TryGetProperty("measured", out JsonElement m) && m.ValueKind == JsonValueKind.Number ? m.GetDouble() : null,
-                        Text(rule, "limit"), Text(rule, "warnLimit"), Text(rule, "unit"), Outcome(Text(rule, "outcome")), Text(rule, "reason")));
+                    reasons.Add($"{rule.Outcome.ToString().ToLowerInvariant()}: {rule.Reason}");
                 }
+                // Every rule, passed ones included, with what was measured and the limits it was held to.
+                // Reports stored before some members existed read them as null.
+                all.Add(new VerdictRuleView(string.IsNullOrEmpty(rule.Description) ? rule.Rule ?? "" : rule.Description, rule.Measured, rule.Limit ?? "",
+                    rule.WarnLimit ?? "", rule.Unit ?? "", Outcome(rule.Outcome), rule.Reason ?? ""));
             }
-            PredictionAgreement? agreement = null;
-            if (root.TryGetProperty("comparison", out JsonElement c) && c.ValueKind == JsonValueKind.Object)
-            {
-                agreement = new PredictionAgreement((int)Get(c, "count"), Get(c, "biasNm"), Get(c, "rmseNm"), Get(c, "rSquared"), Get(c, "meanAbsoluteErrorNm"));
-            }
-            verdict = new VerdictView(Outcome(outcome), reasons, at, all, agreement);
+            PredictionAgreement? agreement = digest.Comparison is { } c
+                ? new PredictionAgreement(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm)
+                : null;
+            verdict = new VerdictView(Outcome(v.Outcome), reasons, at, all, agreement);
         }
         return (statistics, verdict);
     }
@@ -189,7 +179,4 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
 
     private static double Number(string cell) =>
         double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) ? v : double.NaN;
-
-    private static double Get(JsonElement e, string name) =>
-        e.ValueKind == JsonValueKind.Object && e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.Number ? v.GetDouble() : double.NaN;
 }
