@@ -10,6 +10,7 @@ internal static class BenchmarkCatalog
         new ThermalBenchmark(),
         new IngestBenchmark(),
         new StoreWriteBenchmark(),
+        new PostgresWriteBenchmark(),
         new DashboardBenchmark(),
     ];
 }

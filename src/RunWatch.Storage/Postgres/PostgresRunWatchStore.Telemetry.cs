@@ -11,10 +11,12 @@ public sealed partial class PostgresRunWatchStore
     private const int MultiRowChunk = 1000;
 
     // Joins the rows the INSERT really wrote back to their place in the batch; a key sent twice in one batch is
-    // stored once, from its first row (rows are inserted in batch order), so the first row is the new one.
+    // stored once, from its first row (equal keys are inserted in batch order), so the first row is the new one.
+    // Rows go in key order so that two daemons writing overlapping batches (a handover) take the index entries in
+    // the same order and cannot deadlock.
     private const string ReturnNewOrdinals = """
         ins AS (INSERT INTO samples (chamber_id, channel_id, t_us, seq, value)
-                SELECT chamber_id, channel_id, t_us, seq, value FROM v ORDER BY ord
+                SELECT chamber_id, channel_id, t_us, seq, value FROM v ORDER BY chamber_id, channel_id, t_us, seq, ord
                 ON CONFLICT DO NOTHING RETURNING chamber_id, channel_id, t_us, seq)
         SELECT min(v.ord)::bigint FROM ins JOIN v USING (chamber_id, channel_id, t_us, seq) GROUP BY chamber_id, channel_id, t_us, seq
         """;
