@@ -132,6 +132,44 @@ public sealed partial class PostgresRunWatchStore
             await SelectFieldsAsync(connection, null, "f.status = @key ORDER BY f.id", status.ToString(), maxCount, cancellationToken).ConfigureAwait(false), cancellationToken);
 
     /// <inheritdoc />
+    /// <remarks>
+    /// <c>FOR UPDATE SKIP LOCKED</c>: a daemon claiming at the same moment as another skips the row the other has
+    /// locked and takes the next one instead of waiting for it, and never takes the same one.
+    /// </remarks>
+    public Task<FieldRecord?> ClaimQueuedFieldAsync(string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(worker);
+        return WriteAsync(async (connection, transaction) =>
+        {
+            await using var claim = new NpgsqlCommand("""
+                UPDATE fields SET claimed_by = @worker, claimed_until_us = @until
+                WHERE id = (SELECT id FROM fields WHERE status = 'Queued' AND (claimed_until_us IS NULL OR claimed_until_us <= @now)
+                            ORDER BY id LIMIT 1 FOR UPDATE SKIP LOCKED)
+                RETURNING id
+                """, connection, transaction);
+            PgParameters.Text(claim, "worker", worker);
+            PgParameters.Micros(claim, "now", now);
+            PgParameters.Micros(claim, "until", now + lease);
+            if (await claim.ExecuteScalarAsync(cancellationToken).ConfigureAwait(false) is not long id)
+            {
+                return null;
+            }
+            return (await SelectFieldsAsync(connection, transaction, "f.id = @key", id, 1, cancellationToken).ConfigureAwait(false))[0];
+        }, cancellationToken);
+    }
+
+    /// <inheritdoc />
+    public Task ReleaseFieldClaimAsync(long fieldId, string worker, CancellationToken cancellationToken) =>
+        WriteAsync(async (connection, transaction) =>
+        {
+            await using var command = new NpgsqlCommand(
+                "UPDATE fields SET claimed_by = NULL, claimed_until_us = NULL WHERE id = @id AND claimed_by = @worker", connection, transaction);
+            PgParameters.Long(command, "id", fieldId);
+            PgParameters.Text(command, "worker", worker);
+            return await command.ExecuteNonQueryAsync(cancellationToken).ConfigureAwait(false);
+        }, cancellationToken);
+
+    /// <inheritdoc />
     public Task<AnalysisRecord> SaveAnalysisAsync(AnalysisRecord analysis, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(analysis);

@@ -109,4 +109,35 @@ public sealed class WaferStoreContractTests
         Assert.Equal(["W-1", "W-2"], accepted.Wafers);
         Assert.Null(await db.Wafers.AcceptModelFitAsync(9999, "x", default));
     }
+
+    [Theory]
+    [AllStores]
+    public async Task ClaimQueuedFieldAsync_TwoWorkers_EachGetsAnotherFieldAndAnExpiredClaimIsTakenAgain(StoreKind kind)
+    {
+        await using var db = await OpenAsync(kind);
+        var (first, _) = await db.Wafers.AddFieldAsync(Field("q1", "W-5"), default);
+        await db.Wafers.AddFieldAsync(Field("u1"), default);
+        var (second, _) = await db.Wafers.AddFieldAsync(Field("q2", "W-5"), default);
+        var lease = TimeSpan.FromMinutes(5);
+
+        var a = await db.Wafers.ClaimQueuedFieldAsync("daemon-a", T0, lease, default);
+        var b = await db.Wafers.ClaimQueuedFieldAsync("daemon-b", T0, lease, default);
+        var none = await db.Wafers.ClaimQueuedFieldAsync("daemon-b", T0.AddMinutes(1), lease, default);
+
+        Assert.Equal(first.Id, a!.Id);
+        Assert.Equal(second.Id, b!.Id);
+        Assert.Null(none);
+
+        // daemon-a finishes its field; daemon-b dies holding its claim, which runs out after the lease.
+        await db.Wafers.UpdateFieldAsync(a with { Status = FieldStatus.Analysed }, default);
+        Assert.Null(await db.Wafers.ClaimQueuedFieldAsync("daemon-a", T0.AddMinutes(4), lease, default));
+        var retaken = await db.Wafers.ClaimQueuedFieldAsync("daemon-a", T0.AddMinutes(5), lease, default);
+        Assert.Equal(second.Id, retaken!.Id);
+
+        // Given back at once: claimable again before its lease ends, but not by the release of another worker.
+        await db.Wafers.ReleaseFieldClaimAsync(second.Id, "daemon-b", default);
+        Assert.Null(await db.Wafers.ClaimQueuedFieldAsync("daemon-b", T0.AddMinutes(6), lease, default));
+        await db.Wafers.ReleaseFieldClaimAsync(second.Id, "daemon-a", default);
+        Assert.Equal(second.Id, (await db.Wafers.ClaimQueuedFieldAsync("daemon-b", T0.AddMinutes(6), lease, default))!.Id);
+    }
 }

@@ -109,6 +109,54 @@ public sealed class PostgresFleetStoreTests
         Assert.Equal(2, await CountAsync(database, "SELECT COUNT(*) FROM samples"));
     }
 
+    [Fact]
+    public async Task ClaimQueuedFieldAsync_SixWorkersOnTwoDaemons_EveryFieldClaimedExactlyOnce()
+    {
+        var server = await PostgresServer.SharedAsync();
+        string database = await server.CreateDatabaseAsync("claims");
+        try
+        {
+            await using var first = Open(database);
+            await using var second = Open(database);
+            await first.MigrateAsync(CancellationToken.None);
+            const int Fields = 300;
+            for (int i = 0; i < Fields; i++)
+            {
+                await first.AddFieldAsync(new FieldRecord
+                {
+                    Wafer = "W-" + (i % 7).ToString(System.Globalization.CultureInfo.InvariantCulture),
+                    FilePath = "/drop/f" + i.ToString(System.Globalization.CultureInfo.InvariantCulture) + ".tif",
+                    RelativePath = "f" + i.ToString(System.Globalization.CultureInfo.InvariantCulture) + ".tif",
+                    Sha256 = i.ToString("x64", System.Globalization.CultureInfo.InvariantCulture),
+                    ImportedAt = T0,
+                    Status = FieldStatus.Queued,
+                }, CancellationToken.None);
+            }
+
+            async Task<List<long>> WorkAsync(PostgresRunWatchStore store, string worker)
+            {
+                var mine = new List<long>();
+                while (await store.ClaimQueuedFieldAsync(worker, T0, TimeSpan.FromHours(1), CancellationToken.None) is { } field)
+                {
+                    mine.Add(field.Id);
+                    await store.UpdateFieldAsync(field with { Status = FieldStatus.Analysed }, CancellationToken.None);
+                }
+                return mine;
+            }
+
+            var workers = Enumerable.Range(0, 6).Select(w => Task.Run(() => WorkAsync(w % 2 == 0 ? first : second, "worker-" + w.ToString(System.Globalization.CultureInfo.InvariantCulture))));
+            var claimed = (await Task.WhenAll(workers)).SelectMany(ids => ids).ToList();
+
+            Assert.Equal(Fields, claimed.Count);
+            Assert.Equal(Fields, claimed.Distinct().Count());
+            Assert.Equal(0, await CountAsync(database, "SELECT COUNT(*) FROM fields WHERE status = 'Queued'"));
+        }
+        finally
+        {
+            await server.DropDatabaseAsync(database);
+        }
+    }
+
     private static async Task<long> CountAsync(string connectionString, string sql)
     {
         await using var connection = new NpgsqlConnection(new NpgsqlConnectionStringBuilder(connectionString) { Pooling = false }.ConnectionString);
