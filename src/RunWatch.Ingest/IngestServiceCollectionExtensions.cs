@@ -7,6 +7,7 @@ using Prometheus;
 using Microsoft.Extensions.Http.Resilience;
 using Polly;
 using RunWatch.Ingest.Alerts;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
 using RunWatch.Ingest.Health;
 using RunWatch.Ingest.Mqtt;

@@ -1,7 +1,7 @@
 using System.Text.Json;
 using RunWatch.Core.Excursions;
 using RunWatch.Core.Thermal;
-using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Storage;
 
 namespace RunWatch.Ingest.Runs;

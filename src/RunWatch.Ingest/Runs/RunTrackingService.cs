@@ -1,5 +1,6 @@
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Pipeline;
 using RunWatch.Storage;
 

@@ -1,8 +1,8 @@
 using RunWatch.Ingest.Health;
-using RunWatch.Ingest.Wafers;
 using RunWatch.Simulation.Chamber;
 using RunWatch.Simulation.Demo;
 using RunWatch.Storage;
+using RunWatch.Wafers.Pipeline;
 
 namespace RunWatch.Demo;
 

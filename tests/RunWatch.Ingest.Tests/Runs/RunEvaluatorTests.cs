@@ -1,6 +1,6 @@
 using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Options;
-using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Runs;
 using RunWatch.Ingest.Tests.Support;
 using RunWatch.Storage;
