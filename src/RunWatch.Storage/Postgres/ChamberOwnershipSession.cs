@@ -131,7 +131,20 @@ public sealed class ChamberOwnershipSession : IAsyncDisposable
     }
 
     /// <summary>Every chamber's current owner in the fleet, read from the server's lock table.</summary>
+    /// <exception cref="StoreUnavailableException">The server cannot be reached.</exception>
     public static async Task<IReadOnlyList<ChamberOwner>> ReadOwnersAsync(string storeConnectionString, CancellationToken cancellationToken)
+    {
+        try
+        {
+            return await ReadOwnersCoreAsync(storeConnectionString, cancellationToken).ConfigureAwait(false);
+        }
+        catch (Exception ex) when (ex is NpgsqlException or IOException or System.Net.Sockets.SocketException or TimeoutException)
+        {
+            throw new StoreUnavailableException("Cannot read chamber owners: " + ex.Message, ex);
+        }
+    }
+
+    private static async Task<IReadOnlyList<ChamberOwner>> ReadOwnersCoreAsync(string storeConnectionString, CancellationToken cancellationToken)
     {
         await using var connection = new NpgsqlConnection(storeConnectionString);
         await connection.OpenAsync(cancellationToken).ConfigureAwait(false);
