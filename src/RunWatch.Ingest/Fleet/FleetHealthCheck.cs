@@ -20,7 +20,8 @@ internal sealed class FleetHealthCheck(FleetState fleet, ChamberRegistryHolder r
             return HealthCheckResult.Degraded("starting", data: data);
         }
         var chambers = registry.Registry.All;
-        data["owned"] = chambers.Where(c => fleet.Owns(c.ChamberId)).Select(c => c.Name).ToArray();
+        // Owned = locked, state rebuilt and subscribed (a chamber still being taken over is not listed yet).
+        data["owned"] = chambers.Where(c => fleet.OwnedSince.ContainsKey(c.Name)).Select(c => c.Name).ToArray();
         try
         {
             var owners = await ChamberOwnershipSession.ReadOwnersAsync(storage.Value.ConnectionString!, cancellationToken).ConfigureAwait(false);

@@ -33,11 +33,11 @@ public sealed class FleetFailoverTests(Xunit.Abstractions.ITestOutputHelper outp
         {
             // daemon-a takes at most two chambers and starts first, so it owns C1 and C2; daemon-b gets C3.
             await using var daemonA = ServeProcess.Start(folderA, Settings(broker.Port, folderA, "daemon-a", database, maxOwned: 2));
-            await WaitOwnedAsync(daemonA, 2, TimeSpan.FromSeconds(60));
+            await FleetHealth.WaitOwnedAsync(daemonA, 2, TimeSpan.FromSeconds(60));
             await using var daemonB = ServeProcess.Start(folderB, Settings(broker.Port, folderB, "daemon-b", database, maxOwned: 0));
-            await WaitOwnedAsync(daemonB, 1, TimeSpan.FromSeconds(60));
-            Assert.Equal(["C1", "C2"], await OwnedAsync(daemonA));
-            Assert.Equal(["C3"], await OwnedAsync(daemonB));
+            await FleetHealth.WaitOwnedAsync(daemonB, 1, TimeSpan.FromSeconds(60));
+            Assert.Equal(["C1", "C2"], await FleetHealth.OwnedAsync(daemonA));
+            Assert.Equal(["C3"], await FleetHealth.OwnedAsync(daemonB));
 
             var publishers = new List<MqttTestPublisher>();
             var publishing = new List<Task<int>>();
@@ -54,7 +54,7 @@ public sealed class FleetFailoverTests(Xunit.Abstractions.ITestOutputHelper outp
             daemonA.Kill();
             long atKill = Count(database, "SELECT COUNT(*) FROM samples");
             bool stillPublishing = publishing.Any(p => !p.IsCompleted);
-            await WaitOwnedAsync(daemonB, 3, TimeSpan.FromSeconds(60));
+            await FleetHealth.WaitOwnedAsync(daemonB, 3, TimeSpan.FromSeconds(60));
             double takeoverS = clock.Elapsed.TotalSeconds;
 
             int[] published = await Task.WhenAll(publishing);
@@ -142,30 +142,6 @@ public sealed class FleetFailoverTests(Xunit.Abstractions.ITestOutputHelper outp
 
     private static byte[] Event(DateTimeOffset at, string type) => Encoding.UTF8.GetBytes(string.Create(CultureInfo.InvariantCulture,
         $"{{\"t\":\"{at.AddMilliseconds(type == "run-start" ? -1 : 0):yyyy-MM-ddTHH:mm:ss.fffZ}\",\"type\":\"{type}\",\"run\":\"R-FLEET\",\"setpoint_c\":610}}"));
-
-    private static async Task WaitOwnedAsync(ServeProcess daemon, int count, TimeSpan timeout)
-    {
-        var deadline = DateTime.UtcNow + timeout;
-        while (DateTime.UtcNow < deadline)
-        {
-            if ((await OwnedAsync(daemon)).Count == count)
-            {
-                return;
-            }
-            await Task.Delay(50);
-        }
-        throw new TimeoutException($"daemon did not come to own {count} chamber(s): {daemon.Output}");
-    }
-
-    private static async Task<List<string>> OwnedAsync(ServeProcess daemon)
-    {
-        using var health = await daemon.HealthAsync();
-        if (health is null || !health.RootElement.GetProperty("checks").TryGetProperty("fleet", out var fleet) || !fleet.TryGetProperty("owned", out var owned))
-        {
-            return [];
-        }
-        return [.. owned.EnumerateArray().Select(e => e.GetString()!).Order(StringComparer.Ordinal)];
-    }
 
     private static long Count(string database, string sql)
     {
