@@ -41,6 +41,12 @@ public interface IWaferStore
     /// </summary>
     Task<FieldRecord?> ClaimQueuedFieldAsync(string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken);
 
+    /// <summary>
+    /// Claims one queued field for <paramref name="worker"/> until <paramref name="now"/> + <paramref name="lease"/> if no
+    /// other worker holds it; false when it is held, or not queued any more. A field is analysed by whoever claims it.
+    /// </summary>
+    Task<bool> ClaimFieldAsync(long fieldId, string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken);
+
     /// <summary>Gives a claimed field back to the queue at once (the worker stops before analysing it).</summary>
     Task ReleaseFieldClaimAsync(long fieldId, string worker, CancellationToken cancellationToken);
 

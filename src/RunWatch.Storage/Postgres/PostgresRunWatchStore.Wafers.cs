@@ -159,6 +159,26 @@ public sealed partial class PostgresRunWatchStore
     }
 
     /// <inheritdoc />
+    /// <remarks>The row is locked with <c>SKIP LOCKED</c>: a worker claiming it at the same moment gets false, it does not wait.</remarks>
+    public Task<bool> ClaimFieldAsync(long fieldId, string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(worker);
+        return WriteAsync(async (connection, transaction) =>
+        {
+            await using var command = new NpgsqlCommand("""
+                UPDATE fields SET claimed_by = @worker, claimed_until_us = @until
+                WHERE id = (SELECT id FROM fields WHERE id = @id AND status = 'Queued'
+                            AND (claimed_until_us IS NULL OR claimed_until_us <= @now OR claimed_by = @worker) FOR UPDATE SKIP LOCKED)
+                """, connection, transaction);
+            PgParameters.Long(command, "id", fieldId);
+            PgParameters.Text(command, "worker", worker);
+            PgParameters.Micros(command, "now", now);
+            PgParameters.Micros(command, "until", now + lease);
+            return await command.ExecuteNonQueryAsync(cancellationToken).ConfigureAwait(false) == 1;
+        }, cancellationToken);
+    }
+
+    /// <inheritdoc />
     public Task ReleaseFieldClaimAsync(long fieldId, string worker, CancellationToken cancellationToken) =>
         WriteAsync(async (connection, transaction) =>
         {

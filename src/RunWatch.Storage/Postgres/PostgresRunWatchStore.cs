@@ -212,10 +212,15 @@ public sealed partial class PostgresRunWatchStore : IRunWatchStore, IWaferStore,
             await using var connection = await _dataSource.OpenConnectionAsync(cancellationToken).ConfigureAwait(false);
             return await work(connection).ConfigureAwait(false);
         }
-        catch (Exception ex) when (isWrite && IsStoreFailure(ex))
+        catch (Exception ex) when (IsStoreFailure(ex))
         {
-            PostgresLog.WriteFailed(_logger, (ex as PostgresException)?.SqlState ?? ex.GetType().Name, ex);
-            throw new StoreUnavailableException("PostgreSQL write failed: " + ex.Message, ex);
+            // Reads too: a server restart or a lost network must reach the callers as the store's own failure, which
+            // every service already rides out (a raw NpgsqlException would end the service, and the host with it).
+            if (isWrite)
+            {
+                PostgresLog.WriteFailed(_logger, (ex as PostgresException)?.SqlState ?? ex.GetType().Name, ex);
+            }
+            throw new StoreUnavailableException((isWrite ? "PostgreSQL write failed: " : "PostgreSQL read failed: ") + ex.Message, ex);
         }
     }
 

@@ -174,6 +174,25 @@ public sealed partial class SqliteRunWatchStore : IWaferStore
     }
 
     /// <inheritdoc />
+    public Task<bool> ClaimFieldAsync(long fieldId, string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(worker);
+        return WriteAsync(connection =>
+        {
+            using var command = connection.CreateCommand();
+            command.CommandText = """
+                UPDATE fields SET claimed_by = $worker, claimed_until_us = $until
+                WHERE id = $id AND status = 'Queued' AND (claimed_until_us IS NULL OR claimed_until_us <= $now OR claimed_by = $worker)
+                """;
+            command.Parameters.AddWithValue("$id", fieldId);
+            command.Parameters.AddWithValue("$worker", worker);
+            command.Parameters.AddWithValue("$now", UnixMicros.From(now));
+            command.Parameters.AddWithValue("$until", UnixMicros.From(now + lease));
+            return command.ExecuteNonQuery() == 1;
+        }, cancellationToken);
+    }
+
+    /// <inheritdoc />
     public Task ReleaseFieldClaimAsync(long fieldId, string worker, CancellationToken cancellationToken) =>
         WriteAsync(connection =>
         {

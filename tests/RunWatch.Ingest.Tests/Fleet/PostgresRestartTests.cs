@@ -51,6 +51,9 @@ public sealed class PostgresRestartTests(Xunit.Abstractions.ITestOutputHelper ou
             File.WriteAllText(Path.Combine(Path.GetTempPath(), "runwatch-pg-restart-daemon.log"), daemon.Output);
 
             Assert.InRange(atRestart, 4_000, Total - 1);
+            // The daemon rode the outage out: no service ended on the store's failure (that would stop the host).
+            Assert.DoesNotContain("BackgroundService failed", daemon.Output, StringComparison.Ordinal);
+            Assert.NotNull(await daemon.HealthAsync());
             Assert.Equal(Total, stored);
             Assert.Equal(Total, Count(database, "SELECT COUNT(DISTINCT seq) FROM samples"));
             Assert.Equal(Total - 1, Count(database, "SELECT MAX(seq) FROM samples"));

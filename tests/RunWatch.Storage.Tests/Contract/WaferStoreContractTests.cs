@@ -140,4 +140,22 @@ public sealed class WaferStoreContractTests
         await db.Wafers.ReleaseFieldClaimAsync(second.Id, "daemon-a", default);
         Assert.Equal(second.Id, (await db.Wafers.ClaimQueuedFieldAsync("daemon-b", T0.AddMinutes(6), lease, default))!.Id);
     }
+
+    [Theory]
+    [AllStores]
+    public async Task ClaimFieldAsync_TwoWorkersOneField_OnlyTheFirstUntilTheLeaseRunsOut(StoreKind kind)
+    {
+        await using var db = await OpenAsync(kind);
+        var (field, _) = await db.Wafers.AddFieldAsync(Field("c1", "W-6"), default);
+        var (unassigned, _) = await db.Wafers.AddFieldAsync(Field("c2"), default);
+        var lease = TimeSpan.FromMinutes(15);
+
+        Assert.True(await db.Wafers.ClaimFieldAsync(field.Id, "daemon-a", T0, lease, default));
+        Assert.False(await db.Wafers.ClaimFieldAsync(field.Id, "daemon-b", T0.AddMinutes(1), lease, default));
+        Assert.True(await db.Wafers.ClaimFieldAsync(field.Id, "daemon-a", T0.AddMinutes(2), lease, default));
+        Assert.True(await db.Wafers.ClaimFieldAsync(field.Id, "daemon-b", T0.AddMinutes(17), lease, default));
+        Assert.False(await db.Wafers.ClaimFieldAsync(unassigned.Id, "daemon-a", T0, lease, default));
+        await db.Wafers.UpdateFieldAsync(field with { Status = FieldStatus.Analysed }, default);
+        Assert.False(await db.Wafers.ClaimFieldAsync(field.Id, "daemon-c", T0.AddHours(2), lease, default));
+    }
 }
