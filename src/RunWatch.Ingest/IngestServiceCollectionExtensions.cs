@@ -54,7 +54,7 @@ public static partial class IngestServiceCollectionExtensions
         services.AddSingleton<IValidateOptions<IngestOptions>, BatchFitsReceiveMaximum>();
         services.AddOptions<ChambersOptions>()
             .Configure(o => configuration.GetSection(ChambersOptions.SectionName).Bind(o.Items))
-            .Validate(o => o.Validate().Count == 0, "Chambers: invalid configuration (see the chamber list in config/README.md)")
+            .ValidateErrorList(ChambersOptions.SectionName, o => o.Validate())
             .ValidateOnStart();
 
         services.AddOptions<FleetOptions>()
@@ -102,6 +102,7 @@ public static partial class IngestServiceCollectionExtensions
         services.AddSingleton<IDaemonConditions>(sp => sp.GetRequiredService<AlertEngine>());
         services.AddSingleton<IRunLifecycleListener>(sp => sp.GetRequiredService<AlertEngine>());
         services.TryAddSingleton<RunTracker>();
+        services.TryAddSingleton<IRunDiffusivity, ConfiguredRunDiffusivity>();
         services.TryAddSingleton<RunEvaluator>();
         services.TryAddSingleton<AlertDispatchService>();
         services.TryAddSingleton<IAlertCommands>(sp => sp.GetRequiredService<AlertDispatchService>());

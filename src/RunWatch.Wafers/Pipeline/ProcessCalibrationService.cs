@@ -1,5 +1,5 @@
-using System.Text.Json;
 using RunWatch.Core.Model;
+using RunWatch.Core.Wafers;
 using RunWatch.Storage;
 
 namespace RunWatch.Wafers.Pipeline;
@@ -17,7 +17,7 @@ public sealed class ProcessCalibrationService(IWaferStore wafers, TimeProvider t
     public async Task<(ArrheniusFit Fit, ModelFitRecord Record)?> ProposeAsync(string process, CancellationToken cancellationToken)
     {
         var latestPerWafer = new Dictionary<string, ArrheniusPoint>(StringComparer.Ordinal);
-        foreach (ModelFitRecord record in await wafers.GetModelFitsAsync(process, WaferReportService.CaptureRadiusModelName, 1000, cancellationToken).ConfigureAwait(false))
+        foreach (ModelFitRecord record in await wafers.GetModelFitsAsync(process, ModelKinds.CaptureRadius, 1000, cancellationToken).ConfigureAwait(false))
         {
             var point = ModelJson.Deserialize<ArrheniusPoint>(record.ParamsJson);
             latestPerWafer.TryAdd(point.WaferId, point); // newest first: the first seen per wafer is its latest
@@ -31,7 +31,7 @@ public sealed class ProcessCalibrationService(IWaferStore wafers, TimeProvider t
         ModelFitRecord saved = await wafers.SaveModelFitAsync(new ModelFitRecord
         {
             Process = process,
-            Model = WaferReportService.ArrheniusModelName,
+            Model = ModelKinds.Arrhenius,
             FittedAt = time.GetUtcNow(),
             ParamsJson = ModelJson.Serialize(fit),
             RSquared = fit.RSquared,
@@ -70,8 +70,7 @@ public sealed class ProcessCalibrationService(IWaferStore wafers, TimeProvider t
                 {
                     continue;
                 }
-                FieldResult result = JsonSerializer.Deserialize<FieldResult>(analysis.ResultsJson, PipelineJson.Options)
-                    ?? throw new InvalidDataException($"analysis {analysis.Id} has empty results");
+                FieldResult result = FieldResultJson.Read(analysis.ResultsJson);
                 foreach (FieldWire w in result.Wires)
                 {
                     if (WaferEvaluator.Counts(w) && w.ZoneNormalised is { } a && a > 0 && double.IsFinite(a) && double.IsFinite(w.RadiusNm))
@@ -95,7 +94,7 @@ public sealed class ProcessCalibrationService(IWaferStore wafers, TimeProvider t
         ModelFitRecord saved = await wafers.SaveModelFitAsync(new ModelFitRecord
         {
             Process = process,
-            Model = WaferReportService.RadiusModelName,
+            Model = ModelKinds.Radius,
             FittedAt = time.GetUtcNow(),
             ParamsJson = ModelJson.Serialize(fit),
             RSquared = fit.RSquared,

@@ -1,11 +1,12 @@
 using System.Globalization;
-using System.Text.Json;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Excursions;
 using RunWatch.Core.Model;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Thermal;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports;
 using RunWatch.Reports.Model;
 using RunWatch.Storage;
@@ -18,15 +19,6 @@ namespace RunWatch.Wafers.Pipeline;
 /// </summary>
 public sealed class WaferReportService
 {
-    /// <summary>Model name under which radius models are stored per process.</summary>
-    public const string RadiusModelName = "radius";
-
-    /// <summary>Model name of a wafer's best-fit capture radius, one point of the Arrhenius calibration.</summary>
-    public const string CaptureRadiusModelName = "capture-radius";
-
-    /// <summary>Model name of a process's Arrhenius calibration (Ea, D0).</summary>
-    public const string ArrheniusModelName = "arrhenius";
-
     private readonly IRunWatchStore _store;
     private readonly IWaferStore _wafers;
     private readonly WaferPipelineOptions _options;
@@ -73,8 +65,7 @@ public sealed class WaferReportService
             {
                 continue;
             }
-            FieldResult result = JsonSerializer.Deserialize<FieldResult>(analysis.ResultsJson, PipelineJson.Options)
-                ?? throw new InvalidDataException($"analysis {analysis.Id} has empty results");
+            FieldResult result = FieldResultJson.Read(analysis.ResultsJson);
             fields.Add(result);
             string overlay = WaferFiles.OverlayPath(folder, field.Id);
             if (File.Exists(overlay))
@@ -115,7 +106,7 @@ public sealed class WaferReportService
             await _wafers.SaveModelFitAsync(new ModelFitRecord
             {
                 Process = process,
-                Model = RadiusModelName,
+                Model = ModelKinds.Radius,
                 FittedAt = _time.GetUtcNow(),
                 ParamsJson = ModelJson.Serialize(evaluation.Model),
                 RSquared = evaluation.Model.RSquared,
@@ -127,12 +118,12 @@ public sealed class WaferReportService
         if (evaluation.BestCaptureRadius is { } best && run?.TEffC is { } tEffC)
         {
             // One point of the process's Arrhenius calibration: this wafer's best-fit capture radius at its T_eff.
-            var (windowStart, windowEnd) = RunExcursions.GrowthWindow(run);
-            var point = new ArrheniusPoint(wafer, best.CaptureRadiusNm, windowEnd - windowStart, tEffC + 273.15, RunExcursions.ConventionFactor(run));
+            GrowthWindow window = RunThermalSummary.GrowthWindowOf(run);
+            var point = new ArrheniusPoint(wafer, best.CaptureRadiusNm, window.DurationS, PhysicalConstants.CelsiusToKelvin(tEffC), RunThermalSummary.ConventionFactorOf(run));
             await _wafers.SaveModelFitAsync(new ModelFitRecord
             {
                 Process = process,
-                Model = CaptureRadiusModelName,
+                Model = ModelKinds.CaptureRadius,
                 FittedAt = _time.GetUtcNow(),
                 ParamsJson = ModelJson.Serialize(point),
                 RSquared = best.Fit.RSquared,
@@ -188,7 +179,7 @@ public sealed class WaferReportService
 
     private async Task<RadiusModelFit?> AcceptedModelAsync(string process, CancellationToken cancellationToken)
     {
-        foreach (ModelFitRecord fit in await _wafers.GetModelFitsAsync(process, RadiusModelName, 50, cancellationToken).ConfigureAwait(false))
+        foreach (ModelFitRecord fit in await _wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false))
         {
             if (fit.AcceptedAt is not null)
             {
@@ -216,10 +207,10 @@ public sealed class WaferReportService
                     temps.Add(s.Value);
                 }
             }
-            (windowStart, windowEnd) = RunExcursions.GrowthWindow(run);
+            (windowStart, windowEnd) = RunThermalSummary.GrowthWindowOf(run);
         }
         return new ThermalSummary(times, temps, run?.SetpointC, windowStart, windowEnd, excursions.Rows,
-            run?.LNomNm ?? double.NaN, run?.LEffNm ?? double.NaN, run?.TEffC ?? double.NaN, RunExcursions.ConventionFactor(run),
+            run?.LNomNm ?? double.NaN, run?.LEffNm ?? double.NaN, run?.TEffC ?? double.NaN, RunThermalSummary.ConventionFactorOf(run),
             run?.Coverage ?? double.NaN, "gaps longer than the configured limit are reported and mark the run incomplete; nothing is interpolated across them");
     }
 

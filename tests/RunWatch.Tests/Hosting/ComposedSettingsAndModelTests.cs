@@ -11,6 +11,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using RunWatch.Core.Model;
 using RunWatch.Core.Safety;
+using RunWatch.Core.Wafers;
 using RunWatch.Hosting;
 using RunWatch.Storage;
 using RunWatch.Testing.Mqtt;
@@ -101,8 +102,8 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
                 Wafer = wafer, FilePath = "fields/" + wafer + ".png", RelativePath = wafer + ".png", Sha256 = "sha-" + wafer, Status = FieldStatus.Analysed,
             }, CancellationToken.None);
             var result = new FieldResult { FieldName = wafer, PixelSizeNm = 5, WidthNm = 20_000, AnalysedHeightNm = 20_000, Threshold = "otsu", AnalysedAreaCm2 = 4e-6, Wires = fieldWires };
-            await store.SaveAnalysisAsync(new AnalysisRecord { FieldId = field.Id, Status = "done", ResultsJson = JsonSerializer.Serialize(result, PipelineJson.Options) }, CancellationToken.None);
-            await store.SaveModelFitAsync(new ModelFitRecord { Process = Process, Model = WaferReportService.CaptureRadiusModelName, ParamsJson = ModelJson.Serialize(point), Wafers = [wafer] },
+            await store.SaveAnalysisAsync(new AnalysisRecord { FieldId = field.Id, Status = "done", ResultsJson = FieldResultJson.Write(result) }, CancellationToken.None);
+            await store.SaveModelFitAsync(new ModelFitRecord { Process = Process, Model = ModelKinds.CaptureRadius, ParamsJson = ModelJson.Serialize(point), Wafers = [wafer] },
                 CancellationToken.None);
         }
     }
@@ -121,8 +122,8 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
             await SeedWafersAsync(wafers, points, wires);
 
             await commands.RefitModelAsync(Process, "eng-1", CancellationToken.None);
-            var proposedRadius = (await wafers.GetModelFitsAsync(Process, WaferReportService.RadiusModelName, 5, CancellationToken.None)).Single();
-            var proposedArrhenius = (await wafers.GetModelFitsAsync(Process, WaferReportService.ArrheniusModelName, 5, CancellationToken.None)).Single();
+            var proposedRadius = (await wafers.GetModelFitsAsync(Process, ModelKinds.Radius, 5, CancellationToken.None)).Single();
+            var proposedArrhenius = (await wafers.GetModelFitsAsync(Process, ModelKinds.Arrhenius, 5, CancellationToken.None)).Single();
             Assert.Null(proposedRadius.AcceptedAt);
             Assert.Null(proposedArrhenius.AcceptedAt);
 

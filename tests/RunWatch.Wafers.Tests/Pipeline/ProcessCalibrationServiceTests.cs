@@ -2,6 +2,7 @@ using MathNet.Numerics;
 using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Model;
+using RunWatch.Core.Wafers;
 using RunWatch.Wafers.Pipeline;
 using RunWatch.Storage;
 using RunWatch.Storage.Sqlite;
@@ -73,8 +74,8 @@ public sealed class ProcessCalibrationServiceTests : IDisposable
         Assert.Equal(b, refit.Radius.Parameters[1].Value, 1e-9);
 
         // Both stored as proposals, not accepted.
-        var radius = await _store.GetModelFitsAsync("nw-fit", WaferReportService.RadiusModelName, 5, CancellationToken.None);
-        var arrhenius = await _store.GetModelFitsAsync("nw-fit", WaferReportService.ArrheniusModelName, 5, CancellationToken.None);
+        var radius = await _store.GetModelFitsAsync("nw-fit", ModelKinds.Radius, 5, CancellationToken.None);
+        var arrhenius = await _store.GetModelFitsAsync("nw-fit", ModelKinds.Arrhenius, 5, CancellationToken.None);
         Assert.Null(Assert.Single(radius).AcceptedAt);
         Assert.Null(Assert.Single(arrhenius).AcceptedAt);
         Assert.Equal(4, radius[0].Wafers.Count);
@@ -91,6 +92,6 @@ public sealed class ProcessCalibrationServiceTests : IDisposable
         var ex = await Assert.ThrowsAsync<InvalidOperationException>(() => service.RefitAsync("nw-empty", CancellationToken.None));
 
         Assert.Contains("Nothing to refit", ex.Message, StringComparison.Ordinal);
-        Assert.Empty(await _store.GetModelFitsAsync("nw-empty", WaferReportService.RadiusModelName, 5, CancellationToken.None));
+        Assert.Empty(await _store.GetModelFitsAsync("nw-empty", ModelKinds.Radius, 5, CancellationToken.None));
     }
 }

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text.Json;
 using RunWatch.Core.Model;
+using RunWatch.Core.Wafers;
 using RunWatch.Wafers.Pipeline;
 using RunWatch.Storage;
 
@@ -39,14 +40,14 @@ internal static class StoredWafers
             FinishedAt = DateTimeOffset.UnixEpoch,
             Status = "done",
             WireCount = wires.Count,
-            ResultsJson = JsonSerializer.Serialize(result, PipelineJson.Options),
+            ResultsJson = FieldResultJson.Write(result),
         }, CancellationToken.None);
         if (capture is not null)
         {
             await store.SaveModelFitAsync(new ModelFitRecord
             {
                 Process = process,
-                Model = WaferReportService.CaptureRadiusModelName,
+                Model = ModelKinds.CaptureRadius,
                 FittedAt = DateTimeOffset.UnixEpoch,
                 ParamsJson = ModelJson.Serialize(capture),
                 Wafers = [wafer],

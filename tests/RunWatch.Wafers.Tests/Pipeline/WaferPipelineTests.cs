@@ -2,6 +2,7 @@ using System.Diagnostics;
 using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
+using RunWatch.Core.Excursions;
 using RunWatch.Core.Qc;
 using RunWatch.Wafers.Intake;
 using RunWatch.Wafers.Pipeline;
@@ -51,8 +52,9 @@ public sealed class WaferPipelineTests : IAsyncLifetime
         {
             Chamber = "C1", Name = "R-TEST-1", Recipe = "invented-recipe", Wafers = ["W-T1-A", "W-T1-B"], SetpointC = 600, PlannedSeconds = 600,
             StartedAt = RunStart, EndedAt = RunStart.AddSeconds(600), Status = RunStatus.Closed, LNomNm = 290, LEffNm = 300, TEffC = 600.4, Coverage = 1,
-            ExcursionsJson = """[{"start":"2026-03-04T10:03:21Z","end":"2026-03-04T10:03:49Z","durationS":28,"peakDeviationK":12,"peakValueC":612,"severity":"Warning","lengthChangeNm":3.1,"closed":true}]""",
-            SummaryJson = """{"conventionFactor":1,"windowStartS":60,"windowEndS":560}""",
+            Excursions = [new RunExcursionRecord(RunStart.AddSeconds(201), RunStart.AddSeconds(229), 28, 12, 612, ExcursionSeverity.Warning, 3.1, Closed: true)],
+            Summary = new RunThermalSummary(ConventionFactor: 1, IntegralCmSq: 0, CoveredS: 0, WindowStartS: 60, WindowEndS: 560, GapCount: 0, IsComplete: true,
+                LogSensitivityPerK: null, SampleCount: 0, HasPlan: false, Error: null),
         }, default);
 
         var pipeline = Options.Create(new WaferPipelineOptions { PredictionFields = 2 });
@@ -112,7 +114,7 @@ public sealed class WaferPipelineTests : IAsyncLifetime
             Assert.True(File.ReadAllLines(outcome.Files["csv"]).Length > 50, "every wire in the CSV");
         }
         // The run's recipe has no accepted model: the first report proposes one, never accepts it.
-        var fits = await _store.GetModelFitsAsync("invented-recipe", WaferReportService.RadiusModelName, 10, default);
+        var fits = await _store.GetModelFitsAsync("invented-recipe", ModelKinds.Radius, 10, default);
         Assert.NotEmpty(fits);
         Assert.All(fits, f => Assert.Null(f.AcceptedBy));
     }

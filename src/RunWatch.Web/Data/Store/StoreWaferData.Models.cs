@@ -1,6 +1,7 @@
 using System.Globalization;
-using System.Text.Json;
 using RunWatch.Core.Model;
+using RunWatch.Core.Thermal;
+using RunWatch.Core.Wafers;
 using RunWatch.Storage;
 using CoreArrheniusFit = RunWatch.Core.Model.ArrheniusFit;
 using CoreArrheniusPoint = RunWatch.Core.Model.ArrheniusPoint;
@@ -10,15 +11,12 @@ namespace RunWatch.Web.Data.Store;
 /// <summary>Process models: the Process model screen's view, acceptance, and the model the planner uses.</summary>
 public sealed partial class StoreWaferData
 {
-    private const string RadiusModel = "radius";
-    private const string CaptureRadiusModel = "capture-radius";
-    private const string ArrheniusModel = "arrhenius";
     private const int MaxRadiusPoints = 5000;
 
     public async Task<ProcessModelView?> GetProcessModelAsync(string process, CancellationToken cancellationToken)
     {
-        var radius = await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false);
-        var arrheniusFits = await wafers.GetModelFitsAsync(process, ArrheniusModel, 50, cancellationToken).ConfigureAwait(false);
+        var radius = await wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false);
+        var arrheniusFits = await wafers.GetModelFitsAsync(process, ModelKinds.Arrhenius, 50, cancellationToken).ConfigureAwait(false);
         if (radius.Count == 0 && arrheniusFits.Count == 0)
         {
             return null;
@@ -29,17 +27,12 @@ public sealed partial class StoreWaferData
         RadiusFit current = shown is null ? new RadiusFit(RadiusModelForm.Linear, double.NaN, double.NaN, double.NaN, double.NaN, 0, DateTimeOffset.MinValue) : ToRadiusFit(shown);
         ArrheniusFit arrhenius = (acceptedArrhenius ?? candidateArrhenius) is { } a ? ToArrhenius(a) : new ArrheniusFit(double.NaN, double.NaN, double.NaN);
         var points = new List<ArrheniusPoint>();
-        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, CaptureRadiusModel, 500, cancellationToken).ConfigureAwait(false))
+        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, ModelKinds.CaptureRadius, 500, cancellationToken).ConfigureAwait(false))
         {
-            using var doc = JsonDocument.Parse(r.ParamsJson);
-            JsonElement e = doc.RootElement;
-            double l = Get(e, "captureRadiusNm") * 1e-7;
-            double t = Get(e, "growthDurationS");
-            double c = Get(e, "conventionFactor");
-            double tK = Get(e, "effectiveTemperatureK");
-            if (l > 0 && t > 0 && c > 0)
+            CoreArrheniusPoint point = ModelJson.Deserialize<CoreArrheniusPoint>(r.ParamsJson);
+            if (point.CaptureRadiusNm > 0 && point.GrowthDurationS > 0 && point.ConventionFactor > 0)
             {
-                points.Add(new ArrheniusPoint(tK, l * l / (c * t)));
+                points.Add(new ArrheniusPoint(point.EffectiveTemperatureK, ArrheniusCalibration.DiffusivityCmSqPerS(point)));
             }
         }
         IReadOnlyList<ModelPoint> wires = await RadiusDataAsync(process, cancellationToken).ConfigureAwait(false);
@@ -56,13 +49,13 @@ public sealed partial class StoreWaferData
     public async Task<string> AcceptModelAsync(string process, string user, CancellationToken cancellationToken)
     {
         var accepted = new List<string>();
-        foreach (string model in new[] { RadiusModel, ArrheniusModel })
+        foreach (string model in new[] { ModelKinds.Radius, ModelKinds.Arrhenius })
         {
             var fits = await wafers.GetModelFitsAsync(process, model, 50, cancellationToken).ConfigureAwait(false);
             if (AcceptedAndProposed(fits).Proposed is { } proposed)
             {
                 await wafers.AcceptModelFitAsync(proposed.Id, user, cancellationToken).ConfigureAwait(false);
-                accepted.Add(model == RadiusModel ? "radius model " + Describe(ToRadiusFit(proposed)) : "Arrhenius fit " + Describe(ToArrhenius(proposed)));
+                accepted.Add(model == ModelKinds.Radius ? "radius model " + Describe(ToRadiusFit(proposed)) : "Arrhenius fit " + Describe(ToArrhenius(proposed)));
             }
         }
         if (accepted.Count == 0)
@@ -81,9 +74,9 @@ public sealed partial class StoreWaferData
     {
         ArgumentNullException.ThrowIfNull(defaults);
         ModelFitRecord? radius = process.Length == 0 ? null
-            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false)).Accepted;
+            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false)).Accepted;
         ModelFitRecord? arrhenius = process.Length == 0 ? null
-            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, ArrheniusModel, 50, cancellationToken).ConfigureAwait(false)).Accepted;
+            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, ModelKinds.Arrhenius, 50, cancellationToken).ConfigureAwait(false)).Accepted;
         RadiusModelForm form = RadiusModelForm.Linear;
         double a = defaults.RadiusInterceptNm;
         double b = defaults.RadiusSlopeNm;
@@ -98,7 +91,8 @@ public sealed partial class StoreWaferData
         if (arrhenius is not null)
         {
             CoreArrheniusFit fit = ModelJson.Deserialize<CoreArrheniusFit>(arrhenius.ParamsJson);
-            (d0, ea) = (fit.Prefactor.Value, fit.ActivationEnergy.Value);
+            ArrheniusDiffusivity accepted = fit.ToDiffusivity();
+            (d0, ea) = (accepted.D0CmSqPerS, accepted.EaEv);
             c = await ConventionFactorAsync(process, fit.WaferIds, cancellationToken).ConfigureAwait(false) ?? c;
         }
         return new PlannerModel(process, form, a, b, radius?.AcceptedBy, radius?.AcceptedAt, d0, ea, c, arrhenius?.AcceptedBy, arrhenius?.AcceptedAt);
@@ -116,7 +110,7 @@ public sealed partial class StoreWaferData
     {
         var wanted = new HashSet<string>(waferIds, StringComparer.Ordinal);
         var counts = new Dictionary<double, int>();
-        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, CaptureRadiusModel, 1000, cancellationToken).ConfigureAwait(false))
+        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, ModelKinds.CaptureRadius, 1000, cancellationToken).ConfigureAwait(false))
         {
             CoreArrheniusPoint point = ModelJson.Deserialize<CoreArrheniusPoint>(r.ParamsJson);
             if (wanted.Remove(point.WaferId) && point.ConventionFactor > 0)
@@ -150,18 +144,12 @@ public sealed partial class StoreWaferData
                 {
                     continue;
                 }
-                using var doc = JsonDocument.Parse(json);
-                if (!doc.RootElement.TryGetProperty("wires", out JsonElement list) || list.ValueKind != JsonValueKind.Array)
+                foreach (FieldWire w in FieldResultJson.Read(json).Wires)
                 {
-                    continue;
-                }
-                foreach (JsonElement w in list.EnumerateArray())
-                {
-                    double a = Get(w, "zoneNormalised");
-                    double r = Get(w, "radiusNm");
-                    if (points.Count < MaxRadiusPoints && Flag(w, "vertical") && Flag(w, "interior") && a > 0 && double.IsFinite(r))
+                    double a = w.ZoneNormalised ?? double.NaN;
+                    if (points.Count < MaxRadiusPoints && WaferEvaluator.Counts(w) && a > 0 && double.IsFinite(w.RadiusNm))
                     {
-                        points.Add(new ModelPoint(a, r, wafer.Name));
+                        points.Add(new ModelPoint(a, w.RadiusNm, wafer.Name));
                     }
                 }
             }
@@ -169,7 +157,6 @@ public sealed partial class StoreWaferData
         return points;
     }
 
-    private static bool Flag(JsonElement e, string name) => e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.True;
 
     /// <summary>The newest accepted fit and the newest proposal made after it (fits are newest first).</summary>
     private static (ModelFitRecord? Accepted, ModelFitRecord? Proposed) AcceptedAndProposed(IReadOnlyList<ModelFitRecord> fits)
@@ -188,25 +175,14 @@ public sealed partial class StoreWaferData
 
     private static RadiusFit ToRadiusFit(ModelFitRecord r)
     {
-        using var doc = JsonDocument.Parse(r.ParamsJson);
-        JsonElement e = doc.RootElement;
-        var form = e.TryGetProperty("kind", out JsonElement k) && k.GetString() == "PowerLaw" ? RadiusModelForm.PowerLaw : RadiusModelForm.Linear;
-        double a = double.NaN;
-        double b = double.NaN;
-        if (e.TryGetProperty("parameters", out JsonElement ps) && ps.ValueKind == JsonValueKind.Array && ps.GetArrayLength() >= 2)
-        {
-            a = Get(ps[0], "value");
-            b = Get(ps[1], "value");
-        }
-        return new RadiusFit(form, a, b, r.RSquared ?? double.NaN, r.RmseNm ?? double.NaN, (int)Get(e, "count"), r.FittedAt);
+        RadiusModelFit fit = ModelJson.Deserialize<RadiusModelFit>(r.ParamsJson);
+        var form = fit.Kind == RadiusModelKind.PowerLaw ? RadiusModelForm.PowerLaw : RadiusModelForm.Linear;
+        return new RadiusFit(form, fit.Parameters[0].Value, fit.Parameters[1].Value, r.RSquared ?? double.NaN, r.RmseNm ?? double.NaN, fit.Count, r.FittedAt);
     }
 
     private static ArrheniusFit ToArrhenius(ModelFitRecord r)
     {
-        using var doc = JsonDocument.Parse(r.ParamsJson);
-        JsonElement e = doc.RootElement;
-        double ea = e.TryGetProperty("activationEnergy", out JsonElement ae) ? Get(ae, "value") : double.NaN;
-        double d0 = e.TryGetProperty("prefactor", out JsonElement pf) ? Get(pf, "value") : double.NaN;
-        return new ArrheniusFit(d0, ea, r.RSquared ?? double.NaN);
+        CoreArrheniusFit fit = ModelJson.Deserialize<CoreArrheniusFit>(r.ParamsJson);
+        return new ArrheniusFit(fit.Prefactor.Value, fit.ActivationEnergy.Value, r.RSquared ?? double.NaN);
     }
 }

@@ -68,8 +68,7 @@ public sealed partial class StoreWaferData
             {
                 continue;
             }
-            using var doc = JsonDocument.Parse(results);
-            double r = Get(doc.RootElement, "clarkEvansR");
+            double r = FieldResultJson.Read(results).ClarkEvansR ?? double.NaN;
             if (double.IsFinite(r))
             {
                 sum += r;
