@@ -53,8 +53,8 @@ public sealed partial class PostgresRunWatchStore
             PgParameters.Double(command, "l_eff", run.LEffNm);
             PgParameters.Double(command, "t_eff", run.TEffC);
             PgParameters.Double(command, "coverage", run.Coverage);
-            PgParameters.Text(command, "excursions", run.ExcursionsJson);
-            PgParameters.Text(command, "summary", run.SummaryJson);
+            PgParameters.Text(command, "excursions", RunThermalJson.Write(run.Excursions));
+            PgParameters.Text(command, "summary", RunThermalJson.Write(run.Summary));
             object? id = await command.ExecuteScalarAsync(cancellationToken).ConfigureAwait(false);
             if (id is null)
             {
@@ -131,7 +131,7 @@ public sealed partial class PostgresRunWatchStore
         LEffNm = r.IsDBNull(14) ? null : r.GetDouble(14),
         TEffC = r.IsDBNull(15) ? null : r.GetDouble(15),
         Coverage = r.IsDBNull(16) ? null : r.GetDouble(16),
-        ExcursionsJson = r.IsDBNull(17) ? null : r.GetString(17),
-        SummaryJson = r.IsDBNull(18) ? null : r.GetString(18),
+        Excursions = r.IsDBNull(17) ? null : RunThermalJson.ReadExcursions(r.GetString(17)),
+        Summary = r.IsDBNull(18) ? null : RunThermalJson.ReadSummary(r.GetString(18)),
     };
 }
