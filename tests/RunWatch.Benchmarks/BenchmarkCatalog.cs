@@ -11,6 +11,7 @@ internal static class BenchmarkCatalog
         new IngestBenchmark(),
         new StoreWriteBenchmark(),
         new PostgresWriteBenchmark(),
+        new FleetIngestBenchmark(),
         new DashboardBenchmark(),
     ];
 }
