@@ -35,7 +35,7 @@ if [ ${#missing[@]} -gt 0 ]; then
     exit 2
   fi
 fi
-# The Debian broker must not run as a system service here: tests start their own on free loopback ports.
+# The Debian broker and PostgreSQL must not run as system services here: tests start their own on free loopback ports.
 if command -v systemctl >/dev/null 2>&1; then systemctl stop mosquitto postgresql >/dev/null 2>&1 || true; fi
 
 # One throw-away PostgreSQL cluster for the whole run (temporary data folder, free loopback port), stopped at exit.
@@ -44,7 +44,8 @@ if command -v systemctl >/dev/null 2>&1; then systemctl stop mosquitto postgresq
 pg_dir=$(mktemp -d /tmp/runwatch-test-pg-XXXXXX)
 trap 'bash tests/postgres-cluster.sh stop "$pg_dir"' EXIT
 echo "== PostgreSQL (temporary cluster in $pg_dir)"
-RUNWATCH_TEST_POSTGRES=$(bash tests/postgres-cluster.sh start "$pg_dir" | tail -1)
+RUNWATCH_TEST_POSTGRES=$(bash tests/postgres-cluster.sh start "$pg_dir" | tail -1) \
+  || { echo "PostgreSQL could not be started (message above); the store and fleet tests need it, so the run stops here"; exit 2; }
 export RUNWATCH_TEST_POSTGRES
 
 export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
