@@ -14,7 +14,7 @@ command=${1:-}; dir=${2:-}
 if [ -z "$command" ] || [ -z "$dir" ]; then
   echo "usage: $0 start|stop|restart DIR" >&2; exit 2
 fi
-if [ ! -x "$bin/initdb" ]; then
+if [ "$command" != stop ] && [ ! -x "$bin/initdb" ]; then
   echo "PostgreSQL binaries not found in $bin: install the Debian package postgresql (tests/run.sh does)" >&2; exit 3
 fi
 
@@ -50,7 +50,7 @@ EOF
       || { tail -30 "$dir/server.log" >&2; echo "pg_ctl restart failed in $dir" >&2; exit 5; }
     ;;
   stop)
-    if [ -f "$dir/data/postmaster.pid" ]; then
+    if [ -f "$dir/data/postmaster.pid" ] && [ -x "$bin/pg_ctl" ]; then
       as_owner "$bin/pg_ctl" -D "$dir/data" -w -t 30 -m fast stop >/dev/null 2>&1 || true
     fi
     rm -rf "$dir"
