@@ -88,7 +88,9 @@ public sealed class FieldAnalysisService(
         var clock = Stopwatch.StartNew();
         try
         {
-            var (analysis, raster) = await Task.Run(() => FieldAnalyzer.AnalyzeWithRaster(field.FilePath, settings), cancellationToken).ConfigureAwait(false);
+            // The analysis does not watch a token; past its budget the field fails and the queue goes on without it.
+            var (analysis, raster) = await Task.Run(() => FieldAnalyzer.AnalyzeWithRaster(field.FilePath, settings), cancellationToken)
+                .WaitAsync(options.Value.FieldAnalysisBudget, time, cancellationToken).ConfigureAwait(false);
             FieldResult result = FieldResultMapper.From(analysis);
             await OverlayWriter.WriteAsync(analysis, raster, WaferFiles.OverlayPath(reports.FolderFor(field.Wafer), field.Id), cancellationToken).ConfigureAwait(false);
             await wafers.SaveAnalysisAsync(new AnalysisRecord
@@ -115,8 +117,12 @@ public sealed class FieldAnalysisService(
             Log.FieldAnalysed(logger, field.Id, analysis.Wires.Count, clock.ElapsedMilliseconds);
             return (true, field.Wafer);
         }
-        catch (Exception ex) when (ex is ImageDecodeException or FieldSidecarException or InvalidOperationException or IOException or ArgumentException)
+        catch (Exception ex) when (ex is ImageDecodeException or FieldSidecarException or InvalidOperationException or IOException or ArgumentException or TimeoutException)
         {
+            if (ex is TimeoutException)
+            {
+                ex = new TimeoutException("analysis took longer than its budget (WaferPipeline:FieldAnalysisBudget " + options.Value.FieldAnalysisBudget.ToString() + "); the field is skipped");
+            }
             Log.FieldFailed(logger, field.Id, ex.Message);
             await wafers.SaveAnalysisAsync(new AnalysisRecord
             {
