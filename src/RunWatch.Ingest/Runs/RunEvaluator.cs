@@ -59,7 +59,7 @@ internal sealed class RunEvaluator(IRunWatchStore store, IRunDiffusivity? diffus
         foreach (var (e, inWindow, changeUm) in evaluation.Excursions)
         {
             excursions.Add(new RunExcursionRecord(origin.AddSeconds(e.StartS), origin.AddSeconds(e.EndS), e.DurationS, e.PeakDeviationK, e.PeakValueC,
-                e.Severity, Finite(changeUm * 1000.0), e.Closed, inWindow));
+                e.Severity, Finite(changeUm * 1000.0), e.Closed, inWindow, e.SuppressedByDesign));
         }
         var summary = new RunThermalSummary(result.ConventionFactor, result.IntegralCmSq, result.CoveredS, window.StartS, window.EndS, result.Gaps.Count,
             result.IsComplete, Finite(result.LogSensitivityPerK), readings.Count, plan is not null, null);
