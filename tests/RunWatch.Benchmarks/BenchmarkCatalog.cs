@@ -7,6 +7,7 @@ internal static class BenchmarkCatalog
     [
         new ImagingBenchmark(),
         new CaptureZoneBenchmark(),
+        new DiffusionSolverBenchmark(),
         new ThermalBenchmark(),
         new IngestBenchmark(),
         new StoreWriteBenchmark(),

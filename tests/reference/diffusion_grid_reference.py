@@ -6,7 +6,7 @@ WIRES_CSV: one "x,y,r" line per wire (centre and footprint radius, same length u
 LAMBDA: capture length or "inf". BORDER: absorbing | saturated | reflecting | periodic.
 METHOD: "direct" (scipy.sparse.linalg.spsolve, SuperLU) or "cg" (scipy.sparse.linalg.cg, no preconditioner,
 rtol 1e-11), timed in-process (assembly and solve timed separately; interpreter start and file reading are not).
-Prints JSON {"capture": [...], "desorbed": x, "outflow": x, "free_area": x, "assemble_s": t, "solve_s": t,
+Prints JSON {"capture": [...], "desorbed": x, "outflow": x, "free_area": x, "assemble_s": t, "solve_s": t, "solve_cpu_s": t,
 "iterations": n}.
 
 Independent of RunWatch's C# code: the matrix is built here from the labels and the wire circles. Equation per
@@ -100,6 +100,7 @@ def main(argv):
     assemble = time.perf_counter() - start
 
     start = time.perf_counter()
+    cpu_start = time.process_time()
     iterations = 0
     if method == "direct":
         u = spla.spsolve(a.tocsc(), rhs)
@@ -111,6 +112,7 @@ def main(argv):
         if info != 0:
             raise SystemExit(f"cg did not converge: info {info}")
     solve = time.perf_counter() - start
+    solve_cpu = time.process_time() - cpu_start
 
     capture = np.zeros(len(wires))
     np.add.at(capture, np.array(face_w, dtype=np.int64), np.array(face_weight) * u[np.array(face_k, dtype=np.int64)])
@@ -118,7 +120,7 @@ def main(argv):
     if border in ("absorbing", "saturated"):
         outflow = float(np.sum(outside_faces * (u - sat)))
     json.dump({"capture": capture.tolist(), "desorbed": float(s * u.sum()), "outflow": outflow,
-               "free_area": n * h * h, "assemble_s": assemble, "solve_s": solve, "iterations": iterations}, sys.stdout)
+               "free_area": n * h * h, "assemble_s": assemble, "solve_s": solve, "solve_cpu_s": solve_cpu, "iterations": iterations}, sys.stdout)
 
 
 if __name__ == "__main__":

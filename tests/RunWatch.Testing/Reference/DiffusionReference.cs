@@ -2,12 +2,11 @@ using System.Buffers.Binary;
 using System.Globalization;
 using System.Text.Json;
 using RunWatch.Core.Model.Diffusion;
-using RunWatch.Testing.Reference;
 
-namespace RunWatch.Core.Tests.Model.Diffusion;
+namespace RunWatch.Testing.Reference;
 
 /// <summary>Runs tests/reference/diffusion_grid_reference.py on a grid's labels and wire circles.</summary>
-internal static class DiffusionReference
+public static class DiffusionReference
 {
     public static JsonDocument Run(SinkGrid grid, double lambda, BorderCondition border, string method)
     {
