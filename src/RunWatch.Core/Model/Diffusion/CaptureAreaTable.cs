@@ -276,9 +276,10 @@ public sealed class CaptureAreaTable
 
     private static double[] Nodes(double min, double max, double ratio)
     {
+        // At least three intervals (a cubic needs four nodes); a narrow range gets finer nodes rather than a wider range.
         double span = Math.Log(max / min);
-        int intervals = Math.Max(3, (int)Math.Ceiling((span / Math.Log(ratio)) - 1e-9));
-        double step = Math.Log(ratio);
+        double step = Math.Min(Math.Log(ratio), Math.Max(span / 3, 0.01));
+        int intervals = Math.Max(3, (int)Math.Ceiling((span / step) - 1e-9));
         double start = Math.Log(min) - (Math.Max(0, (intervals * step) - span) / 2);
         var nodes = new double[intervals + 1];
         for (int k = 0; k <= intervals; k++)

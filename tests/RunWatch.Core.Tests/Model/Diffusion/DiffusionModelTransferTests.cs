@@ -2,6 +2,7 @@ using RunWatch.Core.Geometry;
 using RunWatch.Core.Model;
 using RunWatch.Core.Model.Diffusion;
 using RunWatch.Core.Thermal;
+using RunWatch.Testing.Physics;
 using Xunit;
 using Xunit.Abstractions;
 

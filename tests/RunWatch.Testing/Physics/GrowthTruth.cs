@@ -2,16 +2,15 @@ using RunWatch.Core.Geometry;
 using RunWatch.Core.Model.Diffusion;
 using RunWatch.Core.PointPatterns;
 using RunWatch.Core.Thermal;
-using RunWatch.Testing.Physics;
 
-namespace RunWatch.Core.Tests.Model.Diffusion;
+namespace RunWatch.Testing.Physics;
 
 /// <summary>
 /// Invented wafers whose radii come from the adatom random-walk simulation (never from the model under test):
 /// self-catalysed-wire-like numbers (about 1.5 wires/µm², radii 30–70 nm, λ of a few hundred nm), invented. The
 /// wires grow during the history (footprints follow their radius), which the model only approximates.
 /// </summary>
-internal static class GrowthTruth
+public static class GrowthTruth
 {
     public const double R0Nm = 20, KappaNm2PerUm2S = 2.5, NoiseNm = 1.5;
 
