@@ -8,6 +8,7 @@ internal static class BenchmarkCatalog
         new ImagingBenchmark(),
         new CaptureZoneBenchmark(),
         new DiffusionSolverBenchmark(),
+        new ModelPredictBenchmark(),
         new ThermalBenchmark(),
         new IngestBenchmark(),
         new StoreWriteBenchmark(),

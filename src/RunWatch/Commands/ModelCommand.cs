@@ -109,7 +109,8 @@ internal static class ModelCommand
             GrowthModelFile modelFile = GrowthModelFile.Read(modelPath);
             DiffusionRadiusModel model = modelFile.Model;
             IReadOnlyList<GrowthCase> cases = GrowthCaseFile.Read(casesPath);
-            var options = new CaptureTableOptions { CellSizeUm = modelFile.CellSizeNm / 1000 };
+            // Guards are judged at the history's largest λ, so the bounds are needed there only.
+            var options = new CaptureTableOptions { CellSizeUm = modelFile.CellSizeNm / 1000, BoundsAtEveryNode = false };
             var outputs = new List<WaferPrediction>();
             var all = new List<(double P, double M)>();
             for (int i = 0; i < cases.Count; i++)

@@ -91,7 +91,7 @@ public sealed class CaptureAreaTable
     /// <summary>Node areas, node-major: [k·WireCount + i].</summary>
     public ReadOnlySpan<double> NodeAreasUm2 => _nodeAreas;
 
-    /// <summary>Capture areas with an absorbing border (lower bounds), node-major like <see cref="NodeAreasUm2"/>.</summary>
+    /// <summary>Capture areas with an absorbing border (lower bounds), node-major like <see cref="NodeAreasUm2"/> (every node holds the largest node's when <see cref="CaptureTableOptions.BoundsAtEveryNode"/> is false).</summary>
     public ReadOnlySpan<double> LowerBoundsUm2 => _lowerBound;
 
     /// <summary>Capture areas with a saturated border (upper bounds), node-major.</summary>
@@ -168,7 +168,8 @@ public sealed class CaptureAreaTable
         var upper = new double[nodes.Length * n];
         bool periodic = fieldUm.Periodic;
         // Work items: every node with the estimate border, and (unless periodic) with the two bounding borders.
-        int items = nodes.Length * (periodic ? 1 : 3);
+        int boundNodes = periodic ? 0 : options.BoundsAtEveryNode ? nodes.Length : 1;
+        int items = nodes.Length + (2 * boundNodes);
         var parallel = new ParallelOptions
         {
             MaxDegreeOfParallelism = options.MaxDegreeOfParallelism > 0 ? options.MaxDegreeOfParallelism : Environment.ProcessorCount,
@@ -182,8 +183,8 @@ public sealed class CaptureAreaTable
             }
             else
             {
-                int node = (item - nodes.Length) % nodes.Length;
-                bool absorbing = item < 2 * nodes.Length;
+                int node = nodes.Length - boundNodes + ((item - nodes.Length) % boundNodes);
+                bool absorbing = item < nodes.Length + boundNodes;
                 SinkCurrents c = solver.Solve(nodes[node], absorbing ? BorderCondition.Absorbing : BorderCondition.Saturated);
                 c.CaptureAreas.CopyTo(absorbing ? lower : upper, node * n);
             }
@@ -193,6 +194,14 @@ public sealed class CaptureAreaTable
         {
             areas.CopyTo(lower, 0);
             areas.CopyTo(upper, 0);
+        }
+        if (!periodic && boundNodes < nodes.Length)
+        {
+            for (int k = 0; k < nodes.Length - 1; k++)
+            {
+                Array.Copy(lower, (nodes.Length - 1) * n, lower, k * n, n);
+                Array.Copy(upper, (nodes.Length - 1) * n, upper, k * n, n);
+            }
         }
         var width = new double[nodes.Length * n];
         var empty = new bool[n];

@@ -18,6 +18,13 @@ public sealed class CaptureTableOptions
     /// <value>0.02.</value>
     public double GuardTolerance { get; init; } = 0.02;
 
+    /// <summary>
+    /// Solve the bounding borders at every node (true), or only at the largest (false: cheaper, and every node is
+    /// then judged by the largest node's bounds, which are the widest, so no wire is wrongly left unguarded).
+    /// </summary>
+    /// <value>true.</value>
+    public bool BoundsAtEveryNode { get; init; } = true;
+
     /// <summary>Solver settings.</summary>
     public DiffusionSolverOptions Solver { get; init; } = new() { RelativeTolerance = 1e-9 };
 
