@@ -34,14 +34,22 @@ internal static class ModelCommand
         var lambdaMin = new Option<double>("--lambda-min-um") { Description = "Smallest capture length the fit may use (µm).", DefaultValueFactory = _ => 0.1 };
         var lambdaMax = new Option<double>("--lambda-max-um") { Description = "Largest capture length the fit may use (µm).", DefaultValueFactory = _ => 3.0 };
         var cell = new Option<double>("--cell-nm") { Description = "Grid cell of the diffusion solution (nm).", DefaultValueFactory = _ => 20 };
+        var capture = new Option<string>("--capture")
+        {
+            Description = "Capture areas from the diffusion solution (diffusion, default) or the simpler Voronoi cell ∩ disc of radius λ (voronoi-disc).",
+            DefaultValueFactory = _ => "diffusion",
+        };
+        capture.AcceptOnlyFromAmong("diffusion", "voronoi-disc");
         var command = new Command("fit", "Fit λ₀², E_λ, κ and r₀ to the wafers of a case file (at least 3 wafers at 2 or more temperatures).");
         command.Arguments.Add(cases);
         command.Options.Add(output);
         command.Options.Add(lambdaMin);
         command.Options.Add(lambdaMax);
         command.Options.Add(cell);
+        command.Options.Add(capture);
         command.SetAction(parse => Fit(parse.GetValue(cases)!, parse.GetValue(output)!, parse.GetValue(lambdaMin), parse.GetValue(lambdaMax),
-            parse.GetValue(cell), Console.Out, Console.Error));
+            parse.GetValue(cell), Console.Out, Console.Error,
+            parse.GetValue(capture) == "voronoi-disc" ? CaptureAreaMethod.VoronoiDisc : CaptureAreaMethod.Diffusion));
         return command;
     }
 
@@ -58,7 +66,8 @@ internal static class ModelCommand
         return command;
     }
 
-    internal static int Fit(string casesPath, string outPath, double lambdaMinUm, double lambdaMaxUm, double cellNm, TextWriter stdout, TextWriter stderr)
+    internal static int Fit(string casesPath, string outPath, double lambdaMinUm, double lambdaMaxUm, double cellNm, TextWriter stdout, TextWriter stderr,
+        CaptureAreaMethod method = CaptureAreaMethod.Diffusion)
     {
         if (!(lambdaMinUm > 0) || !(lambdaMaxUm > lambdaMinUm) || !double.IsFinite(lambdaMaxUm) || !(cellNm > 0) || !double.IsFinite(cellNm))
         {
@@ -69,7 +78,7 @@ internal static class ModelCommand
         {
             IReadOnlyList<GrowthCase> cases = GrowthCaseFile.Read(casesPath);
             var wafers = new List<DiffusionWafer>();
-            var options = new CaptureTableOptions { CellSizeUm = cellNm / 1000 };
+            var options = new CaptureTableOptions { CellSizeUm = cellNm / 1000, Method = method };
             for (int i = 0; i < cases.Count; i++)
             {
                 stderr.WriteLine($"[{i + 1}/{cases.Count}] {cases[i].Wafer}: reading the log, analysing the image, solving the diffusion field");
@@ -83,7 +92,7 @@ internal static class ModelCommand
                 stderr.WriteLine("runwatch model fit: no model: " + result.Refusal);
                 return RefusedExitCode;
             }
-            var file = new GrowthModelFile(GrowthModelFile.CurrentFormat, Path.GetFullPath(casesPath), cellNm, result.Model!, result.Wafers);
+            var file = new GrowthModelFile(GrowthModelFile.CurrentFormat, Path.GetFullPath(casesPath), cellNm, result.Model!, result.Wafers, method);
             File.WriteAllText(outPath, ModelJson.Serialize(file));
             WriteFit(result, stdout);
             stdout.WriteLine($"model written to {Path.GetFullPath(outPath)}");
@@ -110,7 +119,7 @@ internal static class ModelCommand
             DiffusionRadiusModel model = modelFile.Model;
             IReadOnlyList<GrowthCase> cases = GrowthCaseFile.Read(casesPath);
             // Guards are judged at the history's largest λ, so the bounds are needed there only.
-            var options = new CaptureTableOptions { CellSizeUm = modelFile.CellSizeNm / 1000, BoundsAtEveryNode = false };
+            var options = new CaptureTableOptions { CellSizeUm = modelFile.CellSizeNm / 1000, BoundsAtEveryNode = false, Method = modelFile.CaptureMethod };
             var outputs = new List<WaferPrediction>();
             var all = new List<(double P, double M)>();
             for (int i = 0; i < cases.Count; i++)

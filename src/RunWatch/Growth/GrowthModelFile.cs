@@ -10,7 +10,9 @@ namespace RunWatch.Growth;
 /// <param name="CellSizeNm">Grid cell used for the diffusion solution.</param>
 /// <param name="Model">The fitted model.</param>
 /// <param name="Wafers">How it fitted each wafer.</param>
-internal sealed record GrowthModelFile(string Format, string CaseFile, double CellSizeNm, DiffusionRadiusModel Model, IReadOnlyList<DiffusionWaferFigures> Wafers)
+/// <param name="CaptureMethod">Where capture areas came from (the diffusion solution unless the simpler Voronoi ∩ disc was asked for).</param>
+internal sealed record GrowthModelFile(string Format, string CaseFile, double CellSizeNm, DiffusionRadiusModel Model, IReadOnlyList<DiffusionWaferFigures> Wafers,
+    CaptureAreaMethod CaptureMethod = CaptureAreaMethod.Diffusion)
 {
     public const string CurrentFormat = "growth-model/1";
 

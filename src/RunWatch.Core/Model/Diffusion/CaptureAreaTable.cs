@@ -110,12 +110,18 @@ public sealed class CaptureAreaTable
     public int GuardFor(double lambdaMaxUm, Span<bool> guarded)
     {
         double x = Math.Clamp((Math.Log(lambdaMaxUm) - Math.Log(_nodeLambdas[0])) / Math.Log(_nodeLambdas[1] / _nodeLambdas[0]), 0, _nodeLambdas.Length - 1);
+        // A λ on a node is judged by that node alone (an infinite width next door must not leak in through t·∞).
+        if (Math.Abs(x - Math.Round(x)) < 1e-9)
+        {
+            x = Math.Round(x);
+        }
         int k = Math.Min((int)x, _nodeLambdas.Length - 2);
         double t = x - k;
         int count = 0;
         for (int i = 0; i < WireCount; i++)
         {
-            double w = ((1 - t) * _boundWidth[(k * WireCount) + i]) + (t * _boundWidth[((k + 1) * WireCount) + i]);
+            double w0 = _boundWidth[(k * WireCount) + i], w1 = _boundWidth[((k + 1) * WireCount) + i];
+            double w = t == 0 ? w0 : t == 1 ? w1 : ((1 - t) * w0) + (t * w1);
             guarded[i] = _empty[i] || !(w <= GuardTolerance);
             count += guarded[i] ? 1 : 0;
         }
@@ -160,6 +166,10 @@ public sealed class CaptureAreaTable
             throw new ArgumentException($"The λ range must be positive, finite and ordered (got {lambdaMinUm} to {lambdaMaxUm} µm).", nameof(lambdaMinUm));
         }
         double[] nodes = Nodes(lambdaMinUm, lambdaMaxUm, options.NodeRatio);
+        if (options.Method == CaptureAreaMethod.VoronoiDisc)
+        {
+            return BuildVoronoiDisc(centresUm, fieldUm, nodes, options);
+        }
         double cell = Math.Min(options.CellSizeUm, nodes[0] / 4);
         SinkGrid grid = SinkGrid.Rasterise(centresUm, radiiUm, fieldUm, cell);
         int n = grid.WireCount;
@@ -215,6 +225,23 @@ public sealed class CaptureAreaTable
             width[k] = mid > 0 ? (upper[k] - lower[k]) / mid : double.PositiveInfinity;
         }
         return new CaptureAreaTable(n, nodes, areas, lower, upper, width, empty, options.GuardTolerance, cell);
+    }
+
+    private static CaptureAreaTable BuildVoronoiDisc(ReadOnlySpan<Point2D> centres, CaptureField field, double[] nodes, CaptureTableOptions options)
+    {
+        int n = centres.Length;
+        var areas = new double[nodes.Length * n];
+        var width = new double[nodes.Length * n];
+        for (int k = 0; k < nodes.Length; k++)
+        {
+            CaptureZoneResult zones = CaptureZones.Compute(centres, field, new CaptureZoneOptions { DiffusionLength = nodes[k], GuardRule = GuardRule.UnseenNeighbourCouldCut });
+            zones.Areas.CopyTo(areas.AsSpan(k * n, n));
+            for (int i = 0; i < n; i++)
+            {
+                width[(k * n) + i] = zones.Guarded[i] ? double.PositiveInfinity : 0;
+            }
+        }
+        return new CaptureAreaTable(n, nodes, areas, areas, areas, width, new bool[n], options.GuardTolerance, 0);
     }
 
     /// <summary>Wire <paramref name="wire"/>'s capture area at <paramref name="lambdaUm"/> (clamped to the table's range).</summary>

@@ -25,6 +25,10 @@ public sealed class CaptureTableOptions
     /// <value>true.</value>
     public bool BoundsAtEveryNode { get; init; } = true;
 
+    /// <summary>Where the capture areas come from.</summary>
+    /// <value><see cref="CaptureAreaMethod.Diffusion"/>.</value>
+    public CaptureAreaMethod Method { get; init; } = CaptureAreaMethod.Diffusion;
+
     /// <summary>Solver settings.</summary>
     public DiffusionSolverOptions Solver { get; init; } = new() { RelativeTolerance = 1e-9 };
 
@@ -50,6 +54,10 @@ public sealed class CaptureTableOptions
         if (MaxDegreeOfParallelism < 0)
         {
             problems.Add($"MaxDegreeOfParallelism must be 0 or more (got {MaxDegreeOfParallelism}).");
+        }
+        if (!Enum.IsDefined(Method))
+        {
+            problems.Add($"Unknown Method {Method}.");
         }
         problems.AddRange(Solver.Validate());
         return problems;

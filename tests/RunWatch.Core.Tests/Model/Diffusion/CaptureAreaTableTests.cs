@@ -96,6 +96,27 @@ public sealed class CaptureAreaTableTests(ITestOutputHelper output)
         Assert.True(table.GuardFor(table.LambdaMinUm, guarded) < centres.Length);
     }
 
+    /// <summary>The simpler option: at a node the table holds the geometry room's Voronoi ∩ disc areas and guards (checked there against scipy + shapely).</summary>
+    [Fact]
+    public void Build_VoronoiDiscMethod_HoldsGeometryZonesAtNodes()
+    {
+        var field = CaptureField.Rectangle(6, 5);
+        (Point2D[] centres, double[] radii) = DiffusionTestFields.Poisson(field, 1.5, 4);
+        CaptureAreaTable table = CaptureAreaTable.Build(centres, radii, field, 0.3, 1.0, new CaptureTableOptions { Method = CaptureAreaMethod.VoronoiDisc });
+        double lambda = table.NodeLambdasUm[1];
+
+        CaptureZoneResult zones = CaptureZones.Compute(centres, field, new CaptureZoneOptions { DiffusionLength = lambda, GuardRule = GuardRule.UnseenNeighbourCouldCut });
+
+        var guarded = new bool[centres.Length];
+        table.GuardFor(lambda, guarded);
+        for (int i = 0; i < centres.Length; i++)
+        {
+            // The resampled table is linear between points 0.01 apart in ln λ: 1e-4 relative.
+            Assert.Equal(zones.Areas[i], table.AreaAt(i, lambda), 1e-4 * zones.Areas[i]);
+            Assert.Equal(zones.Guarded[i], guarded[i]);
+        }
+    }
+
     [Fact]
     public void Validate_BadOptions_ListsEveryProblem()
     {
