@@ -11,6 +11,7 @@ using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Runs;
 using RunWatch.Storage;
 using RunWatch.Testing.Mqtt;
+using RunWatch.Web.Data;
 using Xunit;
 
 namespace RunWatch.Tests.Hosting;
@@ -140,5 +141,8 @@ public sealed class ComposedDiffusionRunEndTests : IDisposable
         RunDiffusionFigures reread = (await store.GetRunAsync(saved.Id, CancellationToken.None))!.Summary!.Diffusion!;
         Assert.Equal(second.MeanRadiusNm, reread.MeanRadiusNm);
         Assert.Equal(second.LambdaEffNm, reread.LambdaEffNm);
+        // The run screen's query hands them to the page.
+        RunDetail detail = (await app.Services.GetRequiredService<IDashboardQueries>().GetRunAsync("R-DIFF", CancellationToken.None))!;
+        Assert.Equal(second.LambdaAtSetpointNm, detail.Diffusion!.LambdaAtSetpointNm);
     }
 }
