@@ -16,6 +16,8 @@ internal static class CommandCatalog
         root.Subcommands.Add(AnalyzeCommand.Create());
         root.Subcommands.Add(ModelCommand.Create());
         root.Subcommands.Add(HashPasswordCommand.Create());
+        root.Subcommands.Add(BackupCommand.CreateBackup());
+        root.Subcommands.Add(BackupCommand.CreateRestore());
         return root;
     }
 }
