@@ -42,6 +42,12 @@ public sealed record FieldAnalysis
 
     public double? TiltDeg { get; init; }
 
+    /// <summary>Edge blur σ (px) measured on the field's clean wire edges, used to correct sub-pixel areas; NaN when not measured.</summary>
+    public double EdgeSigmaPixels { get; init; } = double.NaN;
+
+    /// <summary>How wire radii were measured, in words.</summary>
+    public string RadiusMethod { get; init; } = "threshold outline area";
+
     /// <summary>Every object found, in label order.</summary>
     public required IReadOnlyList<WireMeasurement> Wires { get; init; }
 

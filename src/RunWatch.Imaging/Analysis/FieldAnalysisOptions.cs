@@ -45,6 +45,16 @@ public sealed class FieldAnalysisOptions
     /// <value>true</value>
     public bool DetectInfoStrip { get; init; } = true;
 
+    /// <summary>Measure radii at the sub-pixel edge (half-maximum along rays, docs/imaging.md); false keeps the threshold outline's area.</summary>
+    /// <value>true</value>
+    public bool SubPixelEdges { get; init; } = true;
+
+    /// <summary>
+    /// The process's droplet contact angle θ in degrees (&gt; 90°), for wires of which only the droplet is visible:
+    /// r_wire = r_drop·sin θ (spherical cap). Null: such wires report the droplet radius only and stay out of the radius statistics.
+    /// </summary>
+    public double? DropletContactAngleDeg { get; init; }
+
     public ClassificationOptions Classification { get; init; } = new();
 
     public ImageLimits Limits { get; init; } = ImageLimits.Default;
@@ -85,6 +95,10 @@ public sealed class FieldAnalysisOptions
         if (ExcludedBottomRows is < 0)
         {
             throw new ArgumentOutOfRangeException(nameof(ExcludedBottomRows), ExcludedBottomRows, "must not be negative");
+        }
+        if (DropletContactAngleDeg is { } theta && !(theta > 90 && theta < 180))
+        {
+            throw new ArgumentOutOfRangeException(nameof(DropletContactAngleDeg), theta, "must lie between 90° and 180° (a droplet hiding its facet)");
         }
         Classification.Validate();
     }

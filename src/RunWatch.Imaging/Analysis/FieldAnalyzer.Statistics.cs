@@ -4,12 +4,18 @@ namespace RunWatch.Imaging.Analysis;
 
 public static partial class FieldAnalyzer
 {
-    private static WireMeasurement[] Classify(List<RawWire> raw, int width, int validHeight, double lengthScale, ClassificationOptions rules)
+    private static WireMeasurement[] Classify(List<RawWire> raw, EdgeProfile[]? edges, int width, int validHeight, double lengthScale, double cosTilt,
+        FieldAnalysisOptions options, List<string> notes, out double edgeSigma)
     {
+        ClassificationOptions rules = options.Classification;
         var candidateAreas = new List<double>(raw.Count);
         var interiorAreas = new List<double>(raw.Count);
-        foreach (RawWire r in raw)
+        var contrasts = new List<double>(raw.Count);
+        var roundContrasts = new List<double>();
+        var sigmas = new List<double>(raw.Count);
+        for (int i = 0; i < raw.Count; i++)
         {
+            RawWire r = raw[i];
             if (TouchesBorder(r, width, validHeight))
             {
                 continue;
@@ -18,38 +24,88 @@ public static partial class FieldAnalyzer
             if (Aspect(r) <= rules.MaxAspectRatio && Solidity(r) >= rules.MinSolidity)
             {
                 candidateAreas.Add(r.Area);
+                if (edges is not null && edges[i].ValidRays >= EdgeRefiner.Rays - 8 && edges[i].Irregularity <= rules.MaxIrregularity)
+                {
+                    EdgeProfile e = edges[i];
+                    (e.SixFold >= rules.MaxDropletSixFold ? contrasts : roundContrasts).Add(e.Top - e.Substrate);
+                    if (e.EdgeSigma is > 0 and < 4)
+                    {
+                        sigmas.Add(e.EdgeSigma);
+                    }
+                }
             }
         }
         List<double> basis = candidateAreas.Count > 0 ? candidateAreas : interiorAreas;
-        double medianArea = double.PositiveInfinity;
-        if (basis.Count > 0)
+        double medianArea = basis.Count > 0 ? Median(basis) : double.PositiveInfinity;
+        // The reference top contrast is the hexagonal tops'. Without ten of them no object is taken for a bare droplet.
+        bool reference = contrasts.Count >= 10;
+        double medianContrast = reference ? Median(contrasts) : roundContrasts.Count + contrasts.Count > 0 ? Median([.. contrasts, .. roundContrasts]) : double.NaN;
+        edgeSigma = sigmas.Count >= 5 ? Median(sigmas) : double.NaN;
+        if (edges is not null && double.IsNaN(edgeSigma))
         {
-            double[] sorted = basis.ToArray();
-            Array.Sort(sorted);
-            medianArea = DistributionSummary.Percentile(sorted, 50);
+            notes.Add("too few clean wire edges to measure the edge blur; radii at the sub-pixel edge are not corrected for it");
         }
+        double blurArea = double.IsNaN(edgeSigma) ? 0 : Math.PI * edgeSigma * edgeSigma;
+        double? sinTheta = options.DropletContactAngleDeg is { } theta ? Math.Sin(theta * Math.PI / 180) : null;
 
         var wires = new WireMeasurement[raw.Count];
         double areaScale = lengthScale * lengthScale;
+        int dropletOnlyCount = 0;
         for (int i = 0; i < raw.Count; i++)
         {
             RawWire r = raw[i];
-            double aspect = Aspect(r);
+            EdgeProfile e = edges is null ? default : edges[i];
+            bool hasEdge = e.ValidRays >= 12 && e.HalfLevelArea > 0;
+            double relative = hasEdge ? (e.Top - e.Substrate) / medianContrast : double.NaN;
+            // A split piece's Feret box includes its cut; the located edge rays do not (the cut's rays are blocked).
+            double aspect = (r.FromSplit || cosTilt < 0.9999) && double.IsFinite(e.RayAspect) ? e.RayAspect : Aspect(r);
             double solidity = Solidity(r);
             double circularity = r.Perimeter > 0 ? 4 * Math.PI * r.Area / (r.Perimeter * r.Perimeter) : 0;
+            bool round = hasEdge && e.SixFold < rules.MaxDropletSixFold && e.Irregularity <= rules.MaxIrregularity;
+            bool dropletOnly = round && reference && relative > rules.MaxRelativeContrast;
+            bool unlikeWire = hasEdge && !dropletOnly
+                && (e.Irregularity > rules.MaxIrregularity || relative < rules.MinRelativeContrast || relative > rules.MaxRelativeContrast);
             WireClass cls =
                 aspect > rules.MaxAspectRatio ? WireClass.Elongated
                 : r.Area > rules.MaxAreaOverMedian * medianArea ? WireClass.Oversized
-                : solidity < rules.MinSolidity || circularity < rules.MinCircularity ? WireClass.Irregular
+                : solidity < rules.MinSolidity || circularity < rules.MinCircularity || unlikeWire ? WireClass.Irregular
                 : WireClass.Vertical;
+
+            double thresholdRadius = Math.Sqrt(r.Area / cosTilt / Math.PI);
+            double radius = thresholdRadius;
+            string method = "threshold";
+            double? droplet = null;
+            if (hasEdge)
+            {
+                double edgeRadius = Math.Sqrt((e.HalfLevelArea + blurArea) / Math.PI);
+                if (dropletOnly)
+                {
+                    droplet = edgeRadius;
+                    radius = sinTheta is { } sin ? edgeRadius * sin : double.NaN;
+                    method = "droplet";
+                    dropletOnlyCount += cls == WireClass.Vertical ? 1 : 0;
+                }
+                else
+                {
+                    radius = edgeRadius;
+                    method = "edge";
+                    // The core's half-level circle shrinks by σ²/(2r) under the blur, as any curved edge does (DERIVED).
+                    droplet = e.CoreRadius > 0 ? e.CoreRadius + (blurArea / Math.PI / (2 * e.CoreRadius)) : null;
+                }
+            }
             wires[i] = new WireMeasurement
             {
                 Id = r.Label,
                 AreaPixels = r.Area,
-                Area = r.Area * areaScale,
-                EquivalentRadius = Math.Sqrt(r.Area / Math.PI) * lengthScale,
+                Area = Math.PI * radius * radius * areaScale,
+                EquivalentRadius = radius * lengthScale,
+                ThresholdRadius = thresholdRadius * lengthScale,
+                RadiusMethod = method,
+                DropletRadius = droplet * lengthScale,
+                Irregularity = e.Irregularity,
+                RelativeContrast = relative,
                 CentroidX = r.CentroidX * lengthScale,
-                CentroidY = r.CentroidY * lengthScale,
+                CentroidY = r.CentroidY / cosTilt * lengthScale,
                 MinFeret = r.MinFeret * lengthScale,
                 MaxFeret = r.MaxFeret * lengthScale,
                 Circularity = circularity,
@@ -61,7 +117,18 @@ public static partial class FieldAnalyzer
                 Split = r.FromSplit,
             };
         }
+        if (dropletOnlyCount > 0 && sinTheta is null)
+        {
+            notes.Add($"{dropletOnlyCount} wires show only their droplet; set the process's droplet contact angle to turn droplet radii into wire radii (they are left out of the radius statistics)");
+        }
         return wires;
+    }
+
+    private static double Median(List<double> values)
+    {
+        double[] sorted = values.ToArray();
+        Array.Sort(sorted);
+        return DistributionSummary.Percentile(sorted, 50);
     }
 
     private static bool TouchesBorder(in RawWire r, int width, int validHeight) =>
@@ -88,7 +155,10 @@ public static partial class FieldAnalyzer
             {
                 case WireClass.Vertical:
                     vertical++;
-                    radii.Add(wire.EquivalentRadius);
+                    if (double.IsFinite(wire.EquivalentRadius))
+                    {
+                        radii.Add(wire.EquivalentRadius);
+                    }
                     break;
                 case WireClass.Elongated:
                     elongated++;

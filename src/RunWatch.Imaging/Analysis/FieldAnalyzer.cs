@@ -65,7 +65,7 @@ public static partial class FieldAnalyzer
         }
         if (sidecar?.TiltDeg is { } tilt && Math.Abs(tilt) > 1)
         {
-            notes.Add($"the field was imaged at {tilt:0.#}° tilt; the analysis assumes a top-down view, so areas and densities are not corrected");
+            notes.Add($"the field was imaged at {tilt:0.#}° tilt: positions, radii, shapes and densities are corrected for the foreshortening (cos θ along y); edge-based zones are counted on the image raster and are not");
         }
 
         (int bandRows, string bandSource) = ExcludedBand(image, sidecar, options);
@@ -94,10 +94,14 @@ public static partial class FieldAnalyzer
         List<RawWire> raw = SplitAndMeasure(labels, image.Pixels, w, count, boxes, options);
         Mark("split+measure");
 
+        double cosTilt = sidecar?.TiltDeg is { } t && Math.Abs(t) > 1 ? Math.Cos(t * Math.PI / 180) : 1;
+        EdgeProfile[]? edges = options.SubPixelEdges ? RefineEdges(raw, image.Pixels, labels, w, validH, cosTilt) : null;
+        Mark("sub-pixel edges");
+
         double pixelNm = scale.PixelSizeNm ?? 1;
         double lengthScale = scale.HasScale ? pixelNm : 1;
         double? lengthL = DiffusionLength(options, scale, notes);
-        WireMeasurement[] wires = Classify(raw, w, validH, lengthScale, options.Classification);
+        WireMeasurement[] wires = Classify(raw, edges, w, validH, lengthScale, cosTilt, options, notes, out double edgeSigma);
         Mark("classify");
 
         int[]? zoneMap = null;
@@ -133,6 +137,8 @@ public static partial class FieldAnalyzer
             WaferId = sidecar?.WaferId,
             FieldPosition = sidecar?.FieldPosition,
             TiltDeg = sidecar?.TiltDeg,
+            EdgeSigmaPixels = edgeSigma,
+            RadiusMethod = options.SubPixelEdges ? "half-maximum edge along 48 rays, blur-corrected (docs/imaging.md)" : "threshold outline area",
             Wires = wires,
             Statistics = stats,
             Notes = notes,
