@@ -34,7 +34,7 @@ public sealed class MicroscopeFieldGeneratorTests
     [Fact]
     public void Generate_SameSeed_GivesSamePixels()
     {
-        Assert.Equal(MicroscopeFields.Make(5, s => new MicroscopeFieldSpec { Width = 320, Height = 240, Seed = 5, ScaleBarNm = 500 }, width: 320, height: 240).Pixels, MicroscopeFields.Make(5, width: 320, height: 240).Pixels);
+        Assert.Equal(MicroscopeFields.Make(5, s => new MicroscopeFieldSpec { Width = 320, Height = 240, Seed = 5, ScaleBarNm = 500 }, width: 320, height: 240).Pixels, MicroscopeFields.Make(5, s => new MicroscopeFieldSpec { Width = 320, Height = 240, Seed = 5, ScaleBarNm = 500 }, width: 320, height: 240).Pixels);
         Assert.NotEqual(MicroscopeFields.Make(5, s => new MicroscopeFieldSpec { Width = 320, Height = 240, Seed = 5, ScaleBarNm = 500 }, width: 320, height: 240).Pixels, MicroscopeFields.Make(6, s => new MicroscopeFieldSpec { Width = 320, Height = 240, Seed = 6, ScaleBarNm = 500 }, width: 320, height: 240).Pixels);
     }
 
