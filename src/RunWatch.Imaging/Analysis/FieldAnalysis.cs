@@ -45,6 +45,9 @@ public sealed record FieldAnalysis
     /// <summary>Edge blur σ (px) measured on the field's clean wire edges, used to correct sub-pixel areas; NaN when not measured.</summary>
     public double EdgeSigmaPixels { get; init; } = double.NaN;
 
+    /// <summary>Where the field's fitted edge model puts the true edge relative to the half-level crossings, px (negative = inside; a bright rim pushes the crossings out). NaN when not fitted.</summary>
+    public double EdgeOffsetPixels { get; init; } = double.NaN;
+
     /// <summary>How wire radii were measured, in words.</summary>
     public string RadiusMethod { get; init; } = "threshold outline area";
 

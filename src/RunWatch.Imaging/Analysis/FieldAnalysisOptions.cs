@@ -34,6 +34,10 @@ public sealed class FieldAnalysisOptions
     /// <value>1.3 (a regular hexagon gives 1.10, two touching discs 2)</value>
     public double CompactFactor { get; init; } = 1.3;
 
+    /// <summary>Enclosed background up to this many pixels joins the object around it (a top darker than its rim); 0 turns hole filling off.</summary>
+    /// <value>4096</value>
+    public int MaxHolePixels { get; init; } = 4096;
+
     /// <summary>Objects smaller than this many pixels are dropped as noise.</summary>
     /// <value>10</value>
     public int MinWireAreaPixels { get; init; } = 10;
@@ -87,6 +91,10 @@ public sealed class FieldAnalysisOptions
         if (!(HMaximaPixels >= 0) || !(CompactFactor >= 1))
         {
             throw new ArgumentOutOfRangeException(nameof(HMaximaPixels), "h must be ≥ 0 and the compact factor ≥ 1");
+        }
+        if (MaxHolePixels < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(MaxHolePixels), MaxHolePixels, "must not be negative");
         }
         if (MinWireAreaPixels < 1)
         {

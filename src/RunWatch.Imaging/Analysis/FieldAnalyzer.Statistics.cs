@@ -1,12 +1,14 @@
+using RunWatch.Core.Profiles;
 using RunWatch.Imaging.Measurement;
 
 namespace RunWatch.Imaging.Analysis;
 
 public static partial class FieldAnalyzer
 {
-    private static WireMeasurement[] Classify(List<RawWire> raw, EdgeProfile[]? edges, int width, int validHeight, double lengthScale, double cosTilt,
-        FieldAnalysisOptions options, List<string> notes, out double edgeSigma)
+    private static WireMeasurement[] Classify(List<RawWire> raw, EdgeProfile[]? edges, double[] alignedProfiles, int width, int validHeight, double lengthScale, double cosTilt,
+        FieldAnalysisOptions options, List<string> notes, out double edgeSigma, out double edgeOffset)
     {
+        var profileSet = new List<int>(raw.Count);
         ClassificationOptions rules = options.Classification;
         var candidateAreas = new List<double>(raw.Count);
         var interiorAreas = new List<double>(raw.Count);
@@ -28,6 +30,10 @@ public static partial class FieldAnalyzer
                 {
                     EdgeProfile e = edges[i];
                     (e.SixFold >= rules.MaxDropletSixFold ? contrasts : roundContrasts).Add(e.Top - e.Substrate);
+                    if (e.SixFold >= rules.MaxDropletSixFold)
+                    {
+                        profileSet.Add(i);
+                    }
                     if (e.EdgeSigma is > 0 and < 4)
                     {
                         sigmas.Add(e.EdgeSigma);
@@ -37,16 +43,40 @@ public static partial class FieldAnalyzer
         }
         List<double> basis = candidateAreas.Count > 0 ? candidateAreas : interiorAreas;
         double medianArea = basis.Count > 0 ? Median(basis) : double.PositiveInfinity;
-        // The reference top contrast is the hexagonal tops'. Without ten of them no object is taken for a bare droplet.
+        // The reference top contrast is the hexagonal tops', taken per tile so that charging drift and gradients cancel.
+        // Without ten of them no object is taken for a bare droplet.
         bool reference = contrasts.Count >= 10;
         double medianContrast = reference ? Median(contrasts) : roundContrasts.Count + contrasts.Count > 0 ? Median([.. contrasts, .. roundContrasts]) : double.NaN;
-        edgeSigma = sigmas.Count >= 5 ? Median(sigmas) : double.NaN;
+        ContrastTiles tiles = reference && edges is not null ? ContrastTiles.Build(raw, edges, profileSet, width, validHeight, medianContrast) : ContrastTiles.Flat(medianContrast);
+        // Noise roughens every outline by about the same number of pixels, so the irregularity allowed grows as 1/r.
+        double noiseIrregularity = edges is null ? 0 : IrregularityScale(raw, edges, profileSet);
+        // The field's edge model (rim and blur) from the hexagonal tops; the flank width is the fallback for σ.
+        BlurredEdge? model = edges is null ? null : FitFieldEdge(alignedProfiles, profileSet);
+        edgeSigma = model?.Sigma ?? (sigmas.Count >= 5 ? Median(sigmas) : double.NaN);
+        edgeOffset = model?.Offset ?? 0;
         if (edges is not null && double.IsNaN(edgeSigma))
         {
             notes.Add("too few clean wire edges to measure the edge blur; radii at the sub-pixel edge are not corrected for it");
         }
         double blurArea = double.IsNaN(edgeSigma) ? 0 : Math.PI * edgeSigma * edgeSigma;
         double? sinTheta = options.DropletContactAngleDeg is { } theta ? Math.Sin(theta * Math.PI / 180) : null;
+
+        // Bare droplets have their own edge (the secant-law brightening of a sphere's slope): their own edge model.
+        var dropletSet = new List<int>();
+        if (edges is not null && reference)
+        {
+            for (int i = 0; i < raw.Count; i++)
+            {
+                EdgeProfile e = edges[i];
+                if (e.ValidRays >= EdgeRefiner.Rays - 8 && e.SixFold < rules.MaxDropletSixFold && e.Irregularity <= rules.MaxIrregularity
+                    && (e.Top - e.Substrate) / tiles.At(raw[i].CentroidX, raw[i].CentroidY) > rules.MaxRelativeContrast)
+                {
+                    dropletSet.Add(i);
+                }
+            }
+        }
+        BlurredEdge? dropletModel = dropletSet.Count >= 5 ? FitFieldEdge(alignedProfiles, dropletSet) : null;
+        double dropletOffset = dropletModel?.Offset ?? edgeOffset;
 
         var wires = new WireMeasurement[raw.Count];
         double areaScale = lengthScale * lengthScale;
@@ -56,17 +86,20 @@ public static partial class FieldAnalyzer
             RawWire r = raw[i];
             EdgeProfile e = edges is null ? default : edges[i];
             bool hasEdge = e.ValidRays >= 12 && e.HalfLevelArea > 0;
-            double relative = hasEdge ? (e.Top - e.Substrate) / medianContrast : double.NaN;
+            double relative = hasEdge ? (e.Top - e.Substrate) / tiles.At(r.CentroidX, r.CentroidY) : double.NaN;
+            double irregularLimit = hasEdge ? Math.Max(rules.MaxIrregularity, 2.5 * noiseIrregularity / Math.Sqrt(e.HalfLevelArea / Math.PI)) : rules.MaxIrregularity;
             // A split piece's Feret box includes its cut; the located edge rays do not (the cut's rays are blocked).
             double aspect = (r.FromSplit || cosTilt < 0.9999) && double.IsFinite(e.RayAspect) ? e.RayAspect : Aspect(r);
             double solidity = Solidity(r);
             double circularity = r.Perimeter > 0 ? 4 * Math.PI * r.Area / (r.Perimeter * r.Perimeter) : 0;
-            bool round = hasEdge && e.SixFold < rules.MaxDropletSixFold && e.Irregularity <= rules.MaxIrregularity;
+            bool round = hasEdge && e.SixFold < rules.MaxDropletSixFold && e.Irregularity <= irregularLimit;
             bool dropletOnly = round && reference && relative > rules.MaxRelativeContrast;
+            // A droplet on the top brightens it (a bright core): the upper contrast limit does not apply then.
             bool unlikeWire = hasEdge && !dropletOnly
-                && (e.Irregularity > rules.MaxIrregularity || relative < rules.MinRelativeContrast || relative > rules.MaxRelativeContrast);
+                && (e.Irregularity > irregularLimit || relative < rules.MinRelativeContrast || (relative > rules.MaxRelativeContrast && e.CoreRadius <= 0 && e.SixFold < rules.MaxDropletSixFold));
             WireClass cls =
                 aspect > rules.MaxAspectRatio ? WireClass.Elongated
+                : dropletOnly ? WireClass.Vertical
                 : r.Area > rules.MaxAreaOverMedian * medianArea ? WireClass.Oversized
                 : solidity < rules.MinSolidity || circularity < rules.MinCircularity || unlikeWire ? WireClass.Irregular
                 : WireClass.Vertical;
@@ -77,11 +110,12 @@ public static partial class FieldAnalyzer
             double? droplet = null;
             if (hasEdge)
             {
-                double edgeRadius = Math.Sqrt((e.HalfLevelArea + blurArea) / Math.PI);
+                double crossingRadius = Math.Sqrt(e.HalfLevelArea / Math.PI);
+                double edgeRadius = Math.Sqrt(Math.Pow(crossingRadius + edgeOffset, 2) + (blurArea / Math.PI));
                 if (dropletOnly)
                 {
-                    droplet = edgeRadius;
-                    radius = sinTheta is { } sin ? edgeRadius * sin : double.NaN;
+                    droplet = Math.Sqrt(Math.Pow(crossingRadius + dropletOffset, 2) + (blurArea / Math.PI));
+                    radius = sinTheta is { } sin ? droplet.Value * sin : double.NaN;
                     method = "droplet";
                     dropletOnlyCount += cls == WireClass.Vertical ? 1 : 0;
                 }
@@ -122,6 +156,20 @@ public static partial class FieldAnalyzer
             notes.Add($"{dropletOnlyCount} wires show only their droplet; set the process's droplet contact angle to turn droplet radii into wire radii (they are left out of the radius statistics)");
         }
         return wires;
+    }
+
+    /// <summary>Median of irregularity × edge radius over the wire candidates: the part of irregularity that noise explains, in px.</summary>
+    private static double IrregularityScale(List<RawWire> raw, EdgeProfile[] edges, List<int> candidates)
+    {
+        var scaled = new List<double>(candidates.Count);
+        foreach (int i in candidates)
+        {
+            if (double.IsFinite(edges[i].Irregularity))
+            {
+                scaled.Add(edges[i].Irregularity * Math.Sqrt(edges[i].HalfLevelArea / Math.PI));
+            }
+        }
+        return scaled.Count >= 5 ? Median(scaled) : 0;
     }
 
     private static double Median(List<double> values)

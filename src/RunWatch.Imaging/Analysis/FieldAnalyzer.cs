@@ -95,13 +95,14 @@ public static partial class FieldAnalyzer
         Mark("split+measure");
 
         double cosTilt = sidecar?.TiltDeg is { } t && Math.Abs(t) > 1 ? Math.Cos(t * Math.PI / 180) : 1;
-        EdgeProfile[]? edges = options.SubPixelEdges ? RefineEdges(raw, image.Pixels, labels, w, validH, cosTilt) : null;
+        double[] alignedProfiles = [];
+        EdgeProfile[]? edges = options.SubPixelEdges ? RefineEdges(raw, image.Pixels, labels, w, validH, cosTilt, out alignedProfiles) : null;
         Mark("sub-pixel edges");
 
         double pixelNm = scale.PixelSizeNm ?? 1;
         double lengthScale = scale.HasScale ? pixelNm : 1;
         double? lengthL = DiffusionLength(options, scale, notes);
-        WireMeasurement[] wires = Classify(raw, edges, w, validH, lengthScale, cosTilt, options, notes, out double edgeSigma);
+        WireMeasurement[] wires = Classify(raw, edges, alignedProfiles, w, validH, lengthScale, cosTilt, options, notes, out double edgeSigma, out double edgeOffset);
         Mark("classify");
 
         int[]? zoneMap = null;
@@ -138,6 +139,7 @@ public static partial class FieldAnalyzer
             FieldPosition = sidecar?.FieldPosition,
             TiltDeg = sidecar?.TiltDeg,
             EdgeSigmaPixels = edgeSigma,
+            EdgeOffsetPixels = edgeOffset,
             RadiusMethod = options.SubPixelEdges ? "half-maximum edge along 48 rays, blur-corrected (docs/imaging.md)" : "threshold outline area",
             Wires = wires,
             Statistics = stats,
@@ -219,7 +221,7 @@ public static partial class FieldAnalyzer
     {
         var perComponent = new List<RawWire>[count + 1];
         var maps = new int[]?[count + 1];
-        Parallel.For(1, count + 1, () => new ComponentSplitter(options.HMaximaPixels, options.CompactFactor), (c, _, splitter) =>
+        Parallel.For(1, count + 1, () => new ComponentSplitter(options.HMaximaPixels, options.CompactFactor, options.MaxHolePixels), (c, _, splitter) =>
         {
             var list = new List<RawWire>(1);
             maps[c] = splitter.Process(labels, intensity, width, c, boxes[c], list);

@@ -17,8 +17,10 @@ internal sealed class EdgeRefiner
     private const double Step = 0.25;
     private const double OutsideReach = 4.5;
     private const double SubstrateFrom = 2.5;
-    private const int Bins = 25; // u = −3 … +3 px around the edge, ¼ px apart
-    private const int BinZero = 12;
+    /// <summary>Samples of the mean edge profile: u = −3 … +3 px around the located edges, ¼ px apart.</summary>
+    public const int Bins = 25;
+    public const int BinZero = 12;
+    public const double BinStep = Step;
 
     private static readonly double[] Cos = Enumerable.Range(0, Rays).Select(k => Math.Cos(2 * Math.PI * k / Rays)).ToArray();
     private static readonly double[] Sin = Enumerable.Range(0, Rays).Select(k => Math.Sin(2 * Math.PI * k / Rays)).ToArray();
@@ -38,8 +40,18 @@ internal sealed class EdgeRefiner
     private const byte Lost = 2;
     private const byte Crowded = 3;
 
-    public EdgeProfile Measure(ushort[] image, int[] labels, int width, int rowStart, int rowEnd, in RawWire wire, double cosTilt)
+    /// <summary>Measures the edge of <paramref name="wire"/> (label image already final) in rows [<paramref name="rowStart"/>, <paramref name="rowEnd"/>).</summary>
+    /// <param name="image">Decoded pixels.</param>
+    /// <param name="labels">Final object ids per pixel.</param>
+    /// <param name="width">Image width.</param>
+    /// <param name="rowStart">First analysed row.</param>
+    /// <param name="rowEnd">One past the last analysed row.</param>
+    /// <param name="wire">The object.</param>
+    /// <param name="cosTilt">cos of the stage tilt (1 for a top-down view).</param>
+    /// <param name="alignedProfile"><see cref="Bins"/> values: the mean profile aligned on the located edges, as (level − substrate)/(peak − substrate); NaN where not measured.</param>
+    public EdgeProfile Measure(ushort[] image, int[] labels, int width, int rowStart, int rowEnd, in RawWire wire, double cosTilt, Span<double> alignedProfile)
     {
+        alignedProfile.Fill(double.NaN);
         double reach = (wire.MaxFeret / Math.Max(0.1, cosTilt)) + OutsideReach + 2;
         int stride = (int)Math.Ceiling(reach / Step) + 2;
         if (_samples.Length < Rays * stride)
@@ -113,6 +125,13 @@ internal sealed class EdgeRefiner
         MeanProfile(k => double.IsNaN(_edge[k]) ? -1 : _edge[k] / Step);
         double peak = Peak();
         result.EdgeSigma = FlankWidth(result.Substrate, peak);
+        if (peak > result.Substrate)
+        {
+            for (int b = 0; b < Bins; b++)
+            {
+                alignedProfile[b] = (_mean[b] - result.Substrate) / (peak - result.Substrate);
+            }
+        }
         (result.Irregularity, result.SixFold, result.RayAspect) = Shape();
         result.CoreRadius = Core(result, top);
         return result;
@@ -213,11 +232,11 @@ internal sealed class EdgeRefiner
         }
     }
 
-    /// <summary>Highest mean level from 2 px inside to ½ px outside the anchor.</summary>
+    /// <summary>Highest mean level from 1½ px inside to ½ px outside the anchor (the rim, not a droplet further in).</summary>
     private double Peak()
     {
         double best = double.NegativeInfinity;
-        for (int b = BinZero - 8; b <= BinZero + 2; b++)
+        for (int b = BinZero - 6; b <= BinZero + 2; b++)
         {
             if (!double.IsNaN(_mean[b]) && _mean[b] > best)
             {

@@ -120,7 +120,7 @@ public static class MicroscopeScene
         }
         else if (v < o.DropletOnlyFraction + o.VisibleFacetDropletFraction)
         {
-            droplet = a * (0.55 + (0.35 * random.NextDouble()));
+            droplet = a * (0.5 + (0.3 * random.NextDouble()));
         }
         return [new MicroscopeObject { Kind = SemObjectKind.Vertical, X = 0, Y = 0, Size = a, AngleDeg = angle, DropletRadius = droplet }];
     }

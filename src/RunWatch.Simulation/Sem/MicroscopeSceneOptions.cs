@@ -26,7 +26,7 @@ public sealed class MicroscopeSceneOptions
 
     public double CrystalliteFraction { get; init; } = 0.12;
 
-    /// <summary>Share of single vertical wires that carry a droplet smaller than the facet's circumradius (corners visible).</summary>
+    /// <summary>Share of single vertical wires that carry a droplet of 0.5–0.8 times the facet side, the facet visible around it.</summary>
     public double VisibleFacetDropletFraction { get; init; } = 0.15;
 
     /// <summary>Share of single vertical wires whose droplet hides the facet: r_drop = r_wire / sin θ (<see cref="ContactAngleDeg"/>).</summary>

@@ -7,34 +7,74 @@ using Xunit.Abstractions;
 namespace RunWatch.Imaging.Tests.Analysis;
 
 /// <summary>
-/// Radius at the sub-pixel edge against the generator's truth: exact hexagon areas (3√3/2)a², drawn with rims, beam blur,
-/// shot noise, jitter, drift and texture (RunWatch.Simulation.Sem.MicroscopeFieldGenerator), independent of the analyser.
+/// Radius at the sub-pixel edge against the generator's truth: exact hexagon areas (3√3/2)a² (DERIVED), drawn with
+/// rims, beam blur, shot noise, jitter, drift, texture and tilt by RunWatch.Simulation.Sem.MicroscopeFieldGenerator,
+/// which knows nothing of the analyser. Bias and recall are printed per effect.
 /// </summary>
 public sealed class EdgeRadiusTruthTests(ITestOutputHelper output)
 {
-    [Theory]
-    [InlineData(0.8, 40, 0.8)]
-    [InlineData(0.0, 40, 0.8)]
-    [InlineData(0.8, 0, 0.0)]
-    public void Diagnose(double rim, double dose, double beam)
+    private static MicroscopeFieldSpec Effects(int seed, double rim = 0.8, double dose = 40, double drift = 0.1, double jitter = 0.15, double tilt = 0, double beam = 0.8) => new()
     {
-        var m = new TruthMatch(MicroscopeFields.Make(11, s => MicroscopeFields.With(s, []) is var c ? new MicroscopeFieldSpec { Width = s.Width, Height = s.Height, Seed = s.Seed, RimYield = rim, DoseElectronsPerPixel = dose, BeamSigmaPx = beam, ScanJitterPx = dose > 0 ? 0.15 : 0, DriftFraction = dose > 0 ? 0.1 : 0, TextureFraction = dose > 0 ? 0.06 : 0 } : s, scene: new MicroscopeSceneOptions { Seed = 11, MinRadiusPx = 4, MaxRadiusPx = 20, Units = 300 }));
-        var plain = m.PlainIsolated().ToList();
-        var found = plain.Where(p => p.Found is not null).ToList();
-        output.WriteLine($"found {m.Analysis.Wires.Count} thr {m.Analysis.Threshold} band {m.Analysis.ExcludedBottomRows} notes {string.Join("/", m.Analysis.Notes)}; sigma {m.Analysis.EdgeSigmaPixels:0.000}; plain {plain.Count} found {found.Count} vertical {found.Count(p => p.Found!.Class == WireClass.Vertical)}");
-        var errs = found.Select(p => (p.Truth.EquivalentRadius, p.Found!.EquivalentRadius - p.Truth.EquivalentRadius)).ToList();
-        foreach (var (lo, hi) in new[] { (4.0, 8.0), (8.0, 12.0), (12.0, 20.0) })
+        Width = 1024, Height = 768, Seed = seed, RimYield = rim, DoseElectronsPerPixel = dose, DriftFraction = drift, ScanJitterPx = jitter,
+        TiltDeg = tilt, BeamSigmaPx = beam,
+    };
+
+    /// <summary>Effect, rim, dose, drift, jitter, tilt, allowed median |error|, least recall. The goal is 2 % and 98 %;
+    /// the two cases allowed more are the measured limits (docs/imaging.md): at 12 electrons per pixel noise biases the
+    /// crossings outwards, and a 30 % gain drift puts the dimmest tops under the global Otsu threshold.</summary>
+    public static TheoryData<string, double, double, double, double, double, double, double> Cases() => new()
+    {
+        { "default (rims, dose 40, drift 10 %, jitter 0.15 px)", 0.8, 40, 0.1, 0.15, 0, 0.02, 0.98 },
+        { "rims off", 0, 40, 0.1, 0.15, 0, 0.02, 0.98 },
+        { "strong rims", 1.6, 40, 0.1, 0.15, 0, 0.02, 0.98 },
+        { "dose 12", 0.8, 12, 0.1, 0.15, 0, 0.035, 0.98 },
+        { "dose 200", 0.8, 200, 0.1, 0.15, 0, 0.02, 0.98 },
+        { "drift 30 %", 0.8, 40, 0.3, 0.15, 0, 0.02, 0.85 },
+        { "jitter 0.4 px", 0.8, 40, 0.1, 0.4, 0, 0.02, 0.98 },
+        { "tilt 30°", 0.8, 40, 0.1, 0.15, 30, 0.02, 0.98 },
+    };
+
+    [Theory]
+    [MemberData(nameof(Cases))]
+    public void EdgeRadius_GeneratedEffects_MedianErrorWithinTwoPercentAndNoTrend(string effect, double rim, double dose, double drift, double jitter, double tilt, double tolerance, double minRecall)
+    {
+        var errors = new List<(double Radius, double Relative)>();
+        int plain = 0, vertical = 0;
+        var thresholdErrors = new List<double>();
+        // One field per radius band (a wafer's wires are alike; a field spanning 4–20 px would call its largest oversized).
+        foreach (var (seed, min, max, units) in new[] { (31, 4.0, 8.0, 320), (32, 8.0, 13.0, 200), (33, 13.0, 20.0, 110) })
         {
-            var bin = errs.Where(e => e.Item1 >= lo && e.Item1 < hi).Select(e => e.Item2).OrderBy(x => x).ToList();
-            output.WriteLine($"bin {lo}-{hi}: n {bin.Count} median err {bin[bin.Count / 2]:+0.000;-0.000} px, rel {found.Where(p => p.Truth.EquivalentRadius >= lo && p.Truth.EquivalentRadius < hi).Select(p => p.Found!.EquivalentRadius / p.Truth.EquivalentRadius - 1).OrderBy(x => x).ElementAt(bin.Count / 2) * 100:+0.00;-0.00}%");
+            MicroscopeFieldSpec spec = Effects(seed, rim, dose, drift, jitter, tilt);
+            var scene = new MicroscopeSceneOptions { Seed = seed, MinRadiusPx = min, MaxRadiusPx = max, Units = units };
+            var m = new TruthMatch(MicroscopeFieldGenerator.Generate(MicroscopeFields.With(spec, MicroscopeScene.Build(spec, scene))));
+            foreach (var (t, f) in m.PlainIsolated())
+            {
+                plain++;
+                if (f is null || f.Class != WireClass.Vertical)
+                {
+                    continue;
+                }
+                vertical++;
+                errors.Add((t.EquivalentRadius, (f.EquivalentRadius / t.EquivalentRadius) - 1));
+                thresholdErrors.Add((f.ThresholdRadius / t.EquivalentRadius) - 1);
+            }
         }
-        foreach (var (t, f) in found.OrderBy(p => p.Truth.EquivalentRadius).Take(0))
+        double Median(IEnumerable<double> v)
         {
-            output.WriteLine($"r {t.EquivalentRadius:0.00} edge {f!.EquivalentRadius:0.00} ({(f.EquivalentRadius / t.EquivalentRadius - 1) * 100:+0.0;-0.0}%) thr {f.ThresholdRadius:0.00} {f.Class} irr {f.Irregularity:0.000} rc {f.RelativeContrast:0.00} {f.RadiusMethod}");
+            double[] s = v.OrderBy(x => x).ToArray();
+            return s.Length % 2 == 1 ? s[s.Length / 2] : 0.5 * (s[(s.Length / 2) - 1] + s[s.Length / 2]);
         }
-        foreach (var (t, f) in m.Pairs.Where(p => p.Truth.Kind == SemObjectKind.Parasitic).Take(0))
-        {
-            output.WriteLine($"crystal r {t.EquivalentRadius:0.0} -> {f?.Class} irr {f?.Irregularity:0.000} rc {f?.RelativeContrast:0.00} sol {f?.Solidity:0.00} ar {f?.AspectRatio:0.00}");
-        }
+        double all = Median(errors.Select(e => e.Relative));
+        double absolute = Median(errors.Select(e => Math.Abs(e.Relative)));
+        double small = Median(errors.Where(e => e.Radius < 8).Select(e => e.Relative));
+        double middle = Median(errors.Where(e => e.Radius is >= 8 and < 13).Select(e => e.Relative));
+        double large = Median(errors.Where(e => e.Radius >= 13).Select(e => e.Relative));
+        output.WriteLine($"{effect}: recall (found and vertical) {vertical}/{plain} = {(double)vertical / plain:P1}; edge radius median error {all:+0.00%;-0.00%}, median |error| {absolute:0.00%}; " +
+            $"by radius 4–8 px {small:+0.00%;-0.00%}, 8–13 px {middle:+0.00%;-0.00%}, 13–20 px {large:+0.00%;-0.00%}; threshold radius median error {Median(thresholdErrors):+0.00%;-0.00%}");
+        Assert.True(plain > 100, $"only {plain} plain wires drawn");
+        Assert.True(vertical >= minRecall * plain, $"{vertical} of {plain} found as vertical wires");
+        Assert.InRange(absolute, 0, tolerance);
+        // No trend with radius: the small and large wires' median errors differ by less than 2 % of the radius.
+        Assert.InRange(small - large, -0.02, 0.02);
     }
 }

@@ -14,24 +14,36 @@ internal sealed class TruthMatch
         Field = field;
         var image = new GrayImage(field.Width, field.Height, field.Pixels);
         var sidecar = new FieldSidecar { TiltDeg = field.Spec.TiltDeg };
-        Analysis = FieldAnalyzer.AnalyzeWithRaster(image, "truth", sidecar, options ?? new FieldAnalysisOptions()).Analysis;
+        (Analysis, FieldRaster raster) = FieldAnalyzer.AnalyzeWithRaster(image, "truth", sidecar, options ?? new FieldAnalysisOptions());
         CosTilt = Math.Abs(field.Spec.TiltDeg) > 1 ? Math.Cos(field.Spec.TiltDeg * Math.PI / 180) : 1;
+        var byId = Analysis.Wires.ToDictionary(w => w.Id);
         foreach (MicroscopeObject o in field.Objects)
         {
-            double reach = Math.Max(1.5, 0.5 * Math.Min(o.Size, o.EquivalentRadius));
-            WireMeasurement? best = null;
-            double bestD = reach;
-            foreach (WireMeasurement w in Analysis.Wires)
-            {
-                double d = Math.Sqrt(Math.Pow(w.CentroidX - o.X, 2) + Math.Pow(w.CentroidY - (o.Y / CosTilt), 2));
-                if (d < bestD)
-                {
-                    bestD = d;
-                    best = w;
-                }
-            }
-            Pairs.Add((o, best));
+            // The found object is the one whose label covers the drawn centre (for a crystallite: its outline's area centroid).
+            (double cx, double cy) = Centre(o);
+            int x = (int)Math.Floor(cx), y = (int)Math.Floor(cy);
+            int id = x >= 0 && y >= 0 && x < field.Width && y < field.Height ? raster.Labels[(y * field.Width) + x] : 0;
+            Pairs.Add((o, id > 0 && byId.TryGetValue(id, out WireMeasurement? w) ? w : null));
         }
+    }
+
+    private (double X, double Y) Centre(MicroscopeObject o)
+    {
+        if (o.Kind != SemObjectKind.Parasitic || o.Outline.Count < 3)
+        {
+            return (o.X, o.Y);
+        }
+        double a = 0, sx = 0, sy = 0;
+        for (int i = 0; i < o.Outline.Count; i++)
+        {
+            var p = o.Outline[i];
+            var q = o.Outline[(i + 1) % o.Outline.Count];
+            double c = (p.X * q.Y) - (q.X * p.Y);
+            a += c;
+            sx += (p.X + q.X) * c;
+            sy += (p.Y + q.Y) * c;
+        }
+        return (o.X + (sx / (3 * a)), o.Y + (sy / (3 * a) * CosTilt));
     }
 
     public MicroscopeField Field { get; }
