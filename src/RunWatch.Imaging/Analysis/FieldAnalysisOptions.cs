@@ -38,6 +38,10 @@ public sealed class FieldAnalysisOptions
     /// <value>4096</value>
     public int MaxHolePixels { get; init; } = 4096;
 
+    /// <summary>Cut a piece between two outline notches at least this deep inside its convex hull (touching tops that the watershed cannot part); 0 turns it off.</summary>
+    /// <value>1.5 px (a pixelised single hexagon has notches under 1 px)</value>
+    public double NotchDepthPixels { get; init; } = 1.5;
+
     /// <summary>Objects smaller than this many pixels are dropped as noise.</summary>
     /// <value>10</value>
     public int MinWireAreaPixels { get; init; } = 10;
@@ -91,6 +95,10 @@ public sealed class FieldAnalysisOptions
         if (!(HMaximaPixels >= 0) || !(CompactFactor >= 1))
         {
             throw new ArgumentOutOfRangeException(nameof(HMaximaPixels), "h must be ≥ 0 and the compact factor ≥ 1");
+        }
+        if (!(NotchDepthPixels >= 0))
+        {
+            throw new ArgumentOutOfRangeException(nameof(NotchDepthPixels), NotchDepthPixels, "must not be negative");
         }
         if (MaxHolePixels < 0)
         {

@@ -221,7 +221,7 @@ public static partial class FieldAnalyzer
     {
         var perComponent = new List<RawWire>[count + 1];
         var maps = new int[]?[count + 1];
-        Parallel.For(1, count + 1, () => new ComponentSplitter(options.HMaximaPixels, options.CompactFactor, options.MaxHolePixels), (c, _, splitter) =>
+        Parallel.For(1, count + 1, () => new ComponentSplitter(options.HMaximaPixels, options.CompactFactor, options.MaxHolePixels, options.NotchDepthPixels), (c, _, splitter) =>
         {
             var list = new List<RawWire>(1);
             maps[c] = splitter.Process(labels, intensity, width, c, boxes[c], list);

@@ -361,6 +361,10 @@ internal sealed class EdgeRefiner
             }
             irregular = 2 * Math.Sqrt(sum2) / mean;
         }
+        else if (n >= 0.6 * Rays)
+        {
+            (irregular, six) = GappedHarmonics(n);
+        }
         double lo = double.PositiveInfinity, hi = 0;
         int pairs = 0;
         for (int k = 0; k < Rays / 2; k++)
@@ -374,6 +378,40 @@ internal sealed class EdgeRefiner
             }
         }
         return (irregular, six, pairs >= 8 ? hi / lo : double.NaN);
+    }
+
+    /// <summary>
+    /// With rays missing (a split piece's cut) the sums above are not orthogonal: least squares of r(φ) on harmonics
+    /// 0–6 over the located rays instead (MathNet QR), so the missing sector adds no false irregularity.
+    /// </summary>
+    private (double Irregularity, double SixFold) GappedHarmonics(int n)
+    {
+        const int Terms = 13;
+        var design = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(n, Terms);
+        var target = MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(n);
+        int row = 0;
+        for (int k = 0; k < Rays; k++)
+        {
+            if (double.IsNaN(_edge[k]))
+            {
+                continue;
+            }
+            design[row, 0] = 1;
+            for (int m = 1; m <= 6; m++)
+            {
+                design[row, (2 * m) - 1] = Cos[(m * k) % Rays];
+                design[row, 2 * m] = Sin[(m * k) % Rays];
+            }
+            target[row++] = _edge[k];
+        }
+        var c = design.QR().Solve(target);
+        double mean = c[0], sum2 = 0;
+        for (int m = 2; m <= 5; m++)
+        {
+            sum2 += (c[(2 * m) - 1] * c[(2 * m) - 1]) + (c[2 * m] * c[2 * m]);
+        }
+        double six = Math.Sqrt((c[11] * c[11]) + (c[12] * c[12]));
+        return (Math.Sqrt(sum2) / mean, six / mean);
     }
 
     /// <summary>A core brighter than the edge peak (a droplet on the top): its radius at half-way between centre and edge peak, from the rays' first drop.</summary>

@@ -11,8 +11,9 @@ namespace RunWatch.Imaging.Segmentation;
 /// the disc of their largest inscribed radius) cannot hold two significant peaks and skip the flooding.
 /// One instance per thread; buffers grow to the largest component seen and are reused.
 /// </summary>
-internal sealed class ComponentSplitter(double hMaximaPixels, double compactFactor, int maxHolePixels = 0)
+internal sealed class ComponentSplitter(double hMaximaPixels, double compactFactor, int maxHolePixels = 0, double notchDepthPixels = 0)
 {
+    private readonly NotchSplitter _notches = new();
     private int[] _queue = [];
     private static readonly (int Dx, int Dy)[] Neighbours8 = [(-1, -1), (0, -1), (1, -1), (-1, 0), (1, 0), (-1, 1), (0, 1), (1, 1)];
 
@@ -78,6 +79,10 @@ internal sealed class ComponentSplitter(double hMaximaPixels, double compactFact
             if (area > compactFactor * Math.PI * inscribed * inscribed)
             {
                 pieces = Flood(pw, n);
+            }
+            if (notchDepthPixels > 0)
+            {
+                pieces = _notches.Split(_features, _piece, pw, ph, pieces, notchDepthPixels);
             }
         }
         Measure(intensity, width, label, box, pw, ph, pieces, output);

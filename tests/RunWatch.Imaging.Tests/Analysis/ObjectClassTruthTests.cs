@@ -48,6 +48,48 @@ public sealed class ObjectClassTruthTests(ITestOutputHelper output)
         Assert.InRange(1 - ((double)wiresKept / wires), 0, 0.02);
     }
 
+    [Theory]
+    [InlineData(51)]
+    [InlineData(52)]
+    public void Split_TouchingWires_EachFoundAsItsOwnWire(int seed)
+    {
+        var byArrangement = new Dictionary<TouchArrangement, (int Members, int Own, int Elongated)>();
+        foreach (int s in new[] { seed, seed + 100 })
+        {
+            TruthMatch m = Field(s, scene: new MicroscopeSceneOptions
+            {
+                Seed = s, MinRadiusPx = 5, MaxRadiusPx = 10, Units = 220, FaceToFaceFraction = 0.12, CornerToCornerFraction = 0.12, ChainFraction = 0.08,
+                CrystalliteFraction = 0.05, TiltedFraction = 0.02,
+            });
+            foreach (var group in m.Pairs.Where(p => p.Truth.Group > 0).GroupBy(p => p.Truth.Group))
+            {
+                if (!group.All(p => m.Interior(p.Truth)))
+                {
+                    continue;
+                }
+                foreach (var (t, f) in group)
+                {
+                    // Its own wire: found, and no other member of the group maps to the same object.
+                    bool own = f is not null && group.Count(p => p.Found?.Id == f.Id) == 1;
+                    var (members, owns, elongated) = byArrangement.GetValueOrDefault(t.Touch);
+                    byArrangement[t.Touch] = (members + 1, owns + (own ? 1 : 0), elongated + (own && f!.Class == WireClass.Elongated ? 1 : 0));
+                }
+            }
+        }
+        int total = 0, split = 0, elongatedTotal = 0;
+        foreach (var (arrangement, (members, own, elongated)) in byArrangement)
+        {
+            output.WriteLine($"{arrangement}: {own}/{members} found as their own wire ({(double)own / members:P1}), {elongated} of those classed elongated");
+            total += members;
+            split += own;
+            elongatedTotal += elongated;
+        }
+        output.WriteLine($"all touching: {split}/{total} = {(double)split / total:P1}; split pieces classed elongated {elongatedTotal}");
+        Assert.True(total >= 60);
+        Assert.InRange((double)split / total, 0.90, 1);
+        Assert.InRange((double)elongatedTotal / split, 0, 0.05);
+    }
+
     [Fact]
     public void Droplets_VisibleAndHiding_ReportDropletAndWireRadiusSeparately()
     {
