@@ -7,6 +7,7 @@ using Prometheus;
 using Microsoft.Extensions.Http.Resilience;
 using Polly;
 using RunWatch.Ingest.Alerts;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
 using RunWatch.Ingest.Health;
 using RunWatch.Ingest.Mqtt;
@@ -83,6 +84,7 @@ public static partial class IngestServiceCollectionExtensions
         services.AddSingleton<IDaemonConditions>(sp => sp.GetRequiredService<AlertEngine>());
         services.AddSingleton<IRunLifecycleListener>(sp => sp.GetRequiredService<AlertEngine>());
         services.TryAddSingleton<RunTracker>();
+        services.TryAddSingleton<IRunDiffusivity, ConfiguredRunDiffusivity>();
         services.TryAddSingleton<RunEvaluator>();
         services.TryAddSingleton<AlertDispatchService>();
         services.TryAddSingleton<IAlertCommands>(sp => sp.GetRequiredService<AlertDispatchService>());

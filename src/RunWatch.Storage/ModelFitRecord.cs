@@ -9,7 +9,7 @@ public sealed record ModelFitRecord
     /// <summary>Process (recipe family).</summary>
     public required string Process { get; init; }
 
-    /// <summary>Kind of model, e.g. "radius-linear", "radius-power", "arrhenius".</summary>
+    /// <summary>Kind of model, one of <see cref="ModelKinds"/>.</summary>
     public required string Model { get; init; }
 
     /// <summary>When it was fitted.</summary>

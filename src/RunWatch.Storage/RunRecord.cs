@@ -54,9 +54,9 @@ public sealed record RunRecord
     /// <summary>Fraction of the growth window covered by the record, 0..1.</summary>
     public double? Coverage { get; init; }
 
-    /// <summary>Excursion summaries as JSON (array), null if none computed.</summary>
-    public string? ExcursionsJson { get; init; }
+    /// <summary>Excursions found in the run's record; null if none computed.</summary>
+    public IReadOnlyList<RunExcursionRecord>? Excursions { get; init; }
 
-    /// <summary>Further figures as JSON (object), null if none.</summary>
-    public string? SummaryJson { get; init; }
+    /// <summary>Further thermal figures (window, convention factor, coverage details); null if none.</summary>
+    public RunThermalSummary? Summary { get; init; }
 }

@@ -13,7 +13,7 @@ public sealed class PlannerOptions
     public double ActivationEnergyEv { get; set; } = 1.3;
 
     /// <summary>Convention factor c of L = √(c·∫D dt) for the default diffusivity (1 for L = √(D·t)).</summary>
-    public double ConventionFactor { get; set; } = 1;
+    public double ConventionFactor { get; set; } = RunWatch.Core.Thermal.DiffusionLengthOptions.DefaultConventionFactor;
 
     /// <summary>Radius model intercept A in nm (r = A + B·Â).</summary>
     public double RadiusInterceptNm { get; set; } = 20.4;

@@ -1,7 +1,7 @@
 using System.Globalization;
 using System.Threading.Channels;
 using RunWatch.Core.Excursions;
-using RunWatch.Ingest.Parsing;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Pipeline;
 using RunWatch.Ingest.Runs;
 using RunWatch.Storage;

@@ -1,5 +1,5 @@
 using RunWatch.Core.Excursions;
-using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Chambers;
 
 namespace RunWatch.Ingest.Alerts;
 

@@ -1,4 +1,4 @@
-using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Chambers;
 
 namespace RunWatch.Ingest.Alerts;
 

@@ -1,6 +1,6 @@
 using System.Globalization;
 using System.Text.Json;
-using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Storage;
 
 namespace RunWatch.Ingest.Parsing;

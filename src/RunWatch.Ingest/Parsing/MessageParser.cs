@@ -1,8 +1,8 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
-using RunWatch.Ingest.Pipeline;
 using RunWatch.Storage;
 
 namespace RunWatch.Ingest.Parsing;

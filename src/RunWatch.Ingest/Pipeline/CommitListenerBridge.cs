@@ -1,4 +1,4 @@
-using RunWatch.Ingest.Parsing;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Storage;
 
 namespace RunWatch.Ingest.Pipeline;

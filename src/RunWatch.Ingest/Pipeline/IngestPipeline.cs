@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
-using RunWatch.Ingest.Alerts;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
 using RunWatch.Ingest.Health;
 using RunWatch.Ingest.Parsing;

@@ -1,6 +1,7 @@
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
 using RunWatch.Storage;
 

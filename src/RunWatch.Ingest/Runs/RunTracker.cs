@@ -1,8 +1,8 @@
 using System.Globalization;
 using System.Threading.Channels;
 using Microsoft.Extensions.Logging;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
-using RunWatch.Ingest.Parsing;
 using RunWatch.Ingest.Pipeline;
 using RunWatch.Storage;
 

@@ -1,5 +1,6 @@
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Pipeline;
 using RunWatch.Storage;
 
@@ -71,8 +72,7 @@ internal sealed class RunTrackingService(
                         catch (ArgumentException ex)
                         {
                             // The record cannot be evaluated (e.g. invalid process parameters): store the run closed, say why.
-                            record = record with { SummaryJson = System.Text.Json.JsonSerializer.Serialize(
-                                new RunSummaryJson(0, 0, 0, 0, 0, 0, false, null, 0, false, ex.Message), RunJsonContext.Default.RunSummaryJson) };
+                            record = record with { Summary = RunThermalSummary.Failed(ex.Message) };
                         }
                     }
                 }

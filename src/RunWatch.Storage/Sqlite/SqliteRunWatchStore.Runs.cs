@@ -55,8 +55,8 @@ public sealed partial class SqliteRunWatchStore
             p.AddWithValue("$l_eff", (object?)run.LEffNm ?? DBNull.Value);
             p.AddWithValue("$t_eff", (object?)run.TEffC ?? DBNull.Value);
             p.AddWithValue("$coverage", (object?)run.Coverage ?? DBNull.Value);
-            p.AddWithValue("$excursions", (object?)run.ExcursionsJson ?? DBNull.Value);
-            p.AddWithValue("$summary", (object?)run.SummaryJson ?? DBNull.Value);
+            p.AddWithValue("$excursions", (object?)RunThermalJson.Write(run.Excursions) ?? DBNull.Value);
+            p.AddWithValue("$summary", (object?)RunThermalJson.Write(run.Summary) ?? DBNull.Value);
             object? id = command.ExecuteScalar();
             if (id is null)
             {
@@ -135,7 +135,7 @@ public sealed partial class SqliteRunWatchStore
         LEffNm = r.IsDBNull(14) ? null : r.GetDouble(14),
         TEffC = r.IsDBNull(15) ? null : r.GetDouble(15),
         Coverage = r.IsDBNull(16) ? null : r.GetDouble(16),
-        ExcursionsJson = r.IsDBNull(17) ? null : r.GetString(17),
-        SummaryJson = r.IsDBNull(18) ? null : r.GetString(18),
+        Excursions = r.IsDBNull(17) ? null : RunThermalJson.ReadExcursions(r.GetString(17)),
+        Summary = r.IsDBNull(18) ? null : RunThermalJson.ReadSummary(r.GetString(18)),
     };
 }

@@ -105,7 +105,7 @@ public static partial class DashboardHostingExtensions
         services.TryAddSingleton<Data.IDashboardQueries>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
         services.TryAddSingleton<Data.IDashboardCommands>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
         services.TryAddSingleton<Data.IPlannerEngine, Data.Store.ProcessModelPlanner>();
-        services.AddHostedService<Data.Store.StoredSettingsStartupService>();
+        services.AddHostedService<StoredSettingsStartupService>();
         return services;
     }
 

@@ -2,8 +2,8 @@ using System.CommandLine;
 using Microsoft.Extensions.DependencyInjection;
 using RunWatch.Demo;
 using RunWatch.Hosting;
-using RunWatch.Ingest.Wafers;
 using RunWatch.Storage;
+using RunWatch.Wafers.Pipeline;
 using RunWatch.Web.Hosting;
 
 namespace RunWatch.Commands;

@@ -1,8 +1,8 @@
 using System.CommandLine;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
-using RunWatch.Ingest.Wafers;
 using RunWatch.Storage;
+using RunWatch.Wafers.Pipeline;
 
 namespace RunWatch.Commands;
 

@@ -1,8 +1,8 @@
 using RunWatch.Ingest.Health;
-using RunWatch.Ingest.Wafers;
 using RunWatch.Simulation.Chamber;
 using RunWatch.Simulation.Demo;
 using RunWatch.Storage;
+using RunWatch.Wafers.Pipeline;
 
 namespace RunWatch.Demo;
 
@@ -88,7 +88,7 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
     /// </summary>
     private async Task AcceptFirstModelAsync(CancellationToken cancellationToken)
     {
-        var fits = await wafers.GetModelFitsAsync("nw-demo", WaferReportService.RadiusModelName, 20, cancellationToken).ConfigureAwait(false);
+        var fits = await wafers.GetModelFitsAsync("nw-demo", ModelKinds.Radius, 20, cancellationToken).ConfigureAwait(false);
         if (fits.Count == 0 || fits.Any(f => f.AcceptedAt is not null))
         {
             return;

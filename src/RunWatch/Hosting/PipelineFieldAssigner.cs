@@ -1,4 +1,4 @@
-using RunWatch.Ingest.Wafers;
+using RunWatch.Wafers.Pipeline;
 using RunWatch.Web.Data;
 
 namespace RunWatch.Hosting;

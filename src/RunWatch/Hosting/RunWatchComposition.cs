@@ -1,7 +1,7 @@
 using Microsoft.Extensions.DependencyInjection.Extensions;
 using RunWatch.Ingest.Alerts;
 using RunWatch.Ingest.Pipeline;
-using RunWatch.Ingest.Wafers;
+using RunWatch.Wafers.Pipeline;
 using RunWatch.Web.Hosting;
 
 namespace RunWatch.Hosting;

@@ -1,10 +1,14 @@
 using System.Globalization;
-using RunWatch.Core.Excursions;
+using RunWatch.Core.Runs;
 using RunWatch.Core.Thermal;
 
 namespace RunWatch.Thermal;
 
-/// <summary>Computes a <see cref="ThermalLogReport"/> from a parsed log: diffusion length over the window and the excursions in it.</summary>
+/// <summary>
+/// Computes a <see cref="ThermalLogReport"/> from a parsed log with the daemon's own run evaluation (Core
+/// <see cref="RunThermalEvaluator"/>): the log is the run, --from/--to its growth window. Diffusion length over the
+/// window; excursions over the whole log, each marked in or outside the window with its effect on L_eff.
+/// </summary>
 internal static class ThermalLogAnalysis
 {
     public static ThermalLogReport Analyze(ThermalCsv csv, ThermalLogSettings settings)
@@ -43,41 +47,30 @@ internal static class ThermalLogAnalysis
             notes.Add("no --d0/--ea given: using the built-in example process (invented: D = 3e-10 cm²/s at 500 °C, Ea = 1 eV); pass your process's values");
         }
 
-        DiffusionLengthResult length = DiffusionLengthCalculator.Compute(record, settings.Diffusivity, window, settings.Length, settings.Calibration, plan);
-
         double[]? setpoints = SetpointsPerSample(csv, record, settings, out string? setpointSource);
-        var observer = new CollectingObserver();
         if (setpoints is null)
         {
             notes.Add("no setpoint (--setpoint-c or --setpoint-channel): deviation bands not checked");
         }
-        var monitor = new ExcursionMonitor(settings.Excursions, settings.Diffusivity, observer);
-        monitor.BeginRun(from);
-        ReadOnlySpan<double> times = record.TimesS;
-        ReadOnlySpan<double> readings = record.ReadingsC;
-        for (int i = 0; i < record.Count; i++)
+        var trueSetpoints = new double[record.Count];
+        for (int i = 0; i < trueSetpoints.Length; i++)
         {
-            if (times[i] < from || times[i] > to)
-            {
-                continue;
-            }
-            double sp = setpoints is null ? double.NaN : settings.Calibration.ToTrueC(setpoints[i]);
-            monitor.Observe(times[i], settings.Calibration.ToTrueC(readings[i]), sp);
+            trueSetpoints[i] = setpoints is null ? double.NaN : settings.Calibration.ToTrueC(setpoints[i]);
         }
-        monitor.Flush(to);
+        // The daemon's run-end evaluation: the whole log is the run, the window is its growth window.
+        RunThermalEvaluation evaluation = RunThermalEvaluator.Evaluate(new RunThermalInput(
+            record, trueSetpoints, window, settings.Diffusivity, settings.Calibration, settings.Length, settings.Excursions, plan));
 
         return new ThermalLogReport
         {
             Channel = channel,
             SampleCount = record.Count,
             Origin = csv.Origin,
-            Length = length,
+            Length = evaluation.Length,
             Settings = settings,
             SetpointSource = setpointSource,
-            Excursions = observer.Excursions,
-            OtherAlarms = observer.Raised
-                .Where(t => t.Kind is not (AlarmKind.DeviationWarning or AlarmKind.DeviationAlarm))
-                .ToList(),
+            Excursions = evaluation.Excursions,
+            OtherAlarms = evaluation.OtherAlarms,
             Notes = notes,
         };
     }
@@ -140,21 +133,4 @@ internal static class ThermalLogAnalysis
     }
 
     internal static string Format(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);
-
-    private sealed class CollectingObserver : IExcursionObserver
-    {
-        public List<ExcursionSummary> Excursions { get; } = [];
-
-        public List<AlarmTransition> Raised { get; } = [];
-
-        public void OnAlarmChanged(in AlarmTransition transition)
-        {
-            if (transition.To == AlarmState.ActiveUnacknowledged)
-            {
-                Raised.Add(transition);
-            }
-        }
-
-        public void OnExcursionEnded(in ExcursionSummary summary) => Excursions.Add(summary);
-    }
 }

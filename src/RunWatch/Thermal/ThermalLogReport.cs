@@ -1,4 +1,5 @@
 using RunWatch.Core.Excursions;
+using RunWatch.Core.Runs;
 using RunWatch.Core.Thermal;
 
 namespace RunWatch.Thermal;
@@ -19,7 +20,8 @@ internal sealed record ThermalLogReport
     /// <summary>Setpoint used for the band checks, when one was known.</summary>
     public required string? SetpointSource { get; init; }
 
-    public required IReadOnlyList<ExcursionSummary> Excursions { get; init; }
+    /// <summary>Every excursion of the log, each marked in or outside the growth window, with its effect on L_eff.</summary>
+    public required IReadOnlyList<RunExcursionEffect> Excursions { get; init; }
 
     /// <summary>Alarms other than the deviation bands that became active (limits, rate, flatline).</summary>
     public required IReadOnlyList<AlarmTransition> OtherAlarms { get; init; }

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using RunWatch.Core.Excursions;
+using RunWatch.Core.Runs;
 using RunWatch.Core.Thermal;
 
 namespace RunWatch.Thermal;
@@ -46,7 +47,7 @@ internal static class ThermalReportJson
             json.WriteEndArray();
             json.WriteBoolean("excursions_checked", report.SetpointSource is not null);
             json.WriteStartArray("excursions");
-            foreach (ExcursionSummary x in report.Excursions)
+            foreach (var (x, inWindow, changeUm) in report.Excursions)
             {
                 json.WriteStartObject();
                 json.WriteNumber("start_s", x.StartS);
@@ -56,7 +57,8 @@ internal static class ThermalReportJson
                 json.WriteNumber("peak_time_s", x.PeakTimeS);
                 json.WriteString("severity", x.Severity == ExcursionSeverity.Alarm ? "alarm" : "warning");
                 json.WriteBoolean("closed", x.Closed);
-                Number(json, "delta_l_eff_um", double.IsNaN(x.ExcessIntegralCmSq) ? double.NaN : x.LengthChangeUm(r.IntegralCmSq, r.ConventionFactor));
+                json.WriteBoolean("in_growth_window", inWindow);
+                Number(json, "delta_l_eff_um", changeUm);
                 json.WriteEndObject();
             }
             json.WriteEndArray();

@@ -35,12 +35,14 @@ internal static class ThermalReportText
         }
         else
         {
-            output.WriteLine($"Excursions      {report.Excursions.Count} beyond ±{F(e.WarningBandK)} K (alarm ±{F(e.AlarmBandK)} K) for ≥ {F(e.MinimumDuration.TotalSeconds)} s, setpoint {report.SetpointSource}");
+            int inside = report.Excursions.Count(x => x.InGrowthWindow);
+            output.WriteLine($"Excursions      {report.Excursions.Count} beyond ±{F(e.WarningBandK)} K (alarm ±{F(e.AlarmBandK)} K) for ≥ {F(e.MinimumDuration.TotalSeconds)} s, setpoint {report.SetpointSource}; {inside} in the growth window");
             int n = 0;
-            foreach (ExcursionSummary x in report.Excursions)
+            foreach (var (x, inWindow, changeUm) in report.Excursions)
             {
                 n++;
-                string deltaL = double.IsNaN(x.ExcessIntegralCmSq) ? "n/a" : x.LengthChangeUm(r.IntegralCmSq, r.ConventionFactor).ToString("+0.0000;-0.0000;0.0000", CultureInfo.InvariantCulture) + $" µm (c = {F(r.ConventionFactor)})";
+                string deltaL = double.IsNaN(changeUm) ? "n/a" : changeUm.ToString("+0.0000;-0.0000;0.0000", CultureInfo.InvariantCulture) + $" µm (c = {F(r.ConventionFactor)})"
+                    + (inWindow ? "" : ", outside the growth window");
                 output.WriteLine(
                     $"  {n,3}. {Time(x.StartS, report.Origin)} to {Time(x.EndS, report.Origin)} ({F(x.DurationS)} s{(x.Closed ? "" : ", still open at the end")}), " +
                     $"{(x.Severity == ExcursionSeverity.Alarm ? "alarm" : "warning")}, peak {x.PeakDeviationK.ToString("+0.00;-0.00", CultureInfo.InvariantCulture)} K at {Time(x.PeakTimeS, report.Origin)}, ΔL_eff {deltaL}");

@@ -1,7 +1,7 @@
 using Microsoft.Extensions.Time.Testing;
 using RunWatch.Core.Excursions;
 using RunWatch.Ingest.Alerts;
-using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Tests.Support;
 
 namespace RunWatch.Ingest.Tests.Alerts;

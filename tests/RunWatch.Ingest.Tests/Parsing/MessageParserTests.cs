@@ -1,4 +1,5 @@
 using System.Text;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
 using RunWatch.Ingest.Parsing;
 using RunWatch.Ingest.Tests.Support;

@@ -2,7 +2,7 @@ using System.Text;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
 using Prometheus;
-using RunWatch.Ingest.Alerts;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
 using RunWatch.Ingest.Health;
 using RunWatch.Ingest.Pipeline;

@@ -1,6 +1,6 @@
 using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Options;
-using RunWatch.Ingest.Pipeline;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Runs;
 using RunWatch.Ingest.Tests.Support;
 using RunWatch.Storage;
@@ -35,7 +35,8 @@ public sealed class RunEvaluatorTests : IDisposable
         Assert.Equal(expectedNm, run.LEffNm.Value, expectedNm * 1e-6);
         Assert.Equal(600.0, run.TEffC!.Value, 1e-6);
         Assert.Equal(1.0, run.Coverage!.Value, 1e-9);
-        Assert.Equal("[]", run.ExcursionsJson);
+        Assert.NotNull(run.Excursions);
+        Assert.Empty(run.Excursions);
     }
 
     [Fact]
@@ -46,13 +47,12 @@ public sealed class RunEvaluatorTests : IDisposable
         var run = await new RunEvaluator(_store).EvaluateAsync(Run(), chamber, CancellationToken.None);
 
         Assert.True(run.LEffNm > run.LNomNm);
-        Assert.Contains("\"severity\":\"Alarm\"", run.ExcursionsJson, StringComparison.Ordinal);
-        using var doc = System.Text.Json.JsonDocument.Parse(run.ExcursionsJson!);
-        var excursion = Assert.Single(doc.RootElement.EnumerateArray());
-        Assert.True(excursion.GetProperty("lengthChangeNm").GetDouble() > 0);
-        Assert.Equal(20.0, excursion.GetProperty("peakDeviationK").GetDouble(), 1e-9);
+        var excursion = Assert.Single(run.Excursions!);
+        Assert.Equal(RunWatch.Core.Excursions.ExcursionSeverity.Alarm, excursion.Severity);
+        Assert.True(excursion.LengthChangeNm > 0);
+        Assert.Equal(20.0, excursion.PeakDeviationK, 1e-9);
         // The change in L equals L_eff minus the length with the excursion at the setpoint, i.e. L_eff − L_nom here.
-        Assert.Equal(run.LEffNm!.Value - run.LNomNm!.Value, excursion.GetProperty("lengthChangeNm").GetDouble(), 1e-3);
+        Assert.Equal(run.LEffNm!.Value - run.LNomNm!.Value, excursion.LengthChangeNm!.Value, 1e-3);
     }
 
     [Fact]
@@ -63,10 +63,9 @@ public sealed class RunEvaluatorTests : IDisposable
 
         var run = await new RunEvaluator(_store).EvaluateAsync(Run(), chamber, CancellationToken.None);
 
-        using var doc = System.Text.Json.JsonDocument.Parse(run.ExcursionsJson!);
-        var excursion = Assert.Single(doc.RootElement.EnumerateArray());
-        Assert.False(excursion.GetProperty("inGrowthWindow").GetBoolean());
-        Assert.Equal(0.0, excursion.GetProperty("lengthChangeNm").GetDouble());
+        var excursion = Assert.Single(run.Excursions!);
+        Assert.False(excursion.InGrowthWindow);
+        Assert.Equal(0.0, excursion.LengthChangeNm);
         // DERIVED: L_eff over the 500 s window at 600 °C, same constants as the constant-setpoint test above.
         double expectedNm = Math.Sqrt(1e-2 * Math.Exp(-1.3 / (8.617333262e-5 * 873.15)) * 500.0) * 1e7;
         Assert.Equal(expectedNm, run.LEffNm!.Value, expectedNm * 1e-6);

@@ -1,7 +1,6 @@
 using Microsoft.Extensions.Logging.Abstractions;
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
-using RunWatch.Ingest.Parsing;
-using RunWatch.Ingest.Pipeline;
 using RunWatch.Ingest.Runs;
 using RunWatch.Ingest.Tests.Support;
 using RunWatch.Storage;

@@ -1,5 +1,5 @@
+using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
-using RunWatch.Ingest.Pipeline;
 using RunWatch.Storage;
 
 namespace RunWatch.Ingest.Tests.Support;

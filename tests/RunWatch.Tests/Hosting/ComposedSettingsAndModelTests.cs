@@ -12,9 +12,9 @@ using Microsoft.Extensions.Hosting;
 using RunWatch.Core.Model;
 using RunWatch.Core.Safety;
 using RunWatch.Hosting;
-using RunWatch.Ingest.Wafers;
 using RunWatch.Storage;
 using RunWatch.Testing.Mqtt;
+using RunWatch.Wafers.Pipeline;
 using RunWatch.Web.Data;
 using RunWatch.Web.Safety;
 using RunWatch.Web.Security;
@@ -102,7 +102,7 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
             }, CancellationToken.None);
             var result = new FieldResult { FieldName = wafer, PixelSizeNm = 5, WidthNm = 20_000, AnalysedHeightNm = 20_000, Threshold = "otsu", AnalysedAreaCm2 = 4e-6, Wires = fieldWires };
             await store.SaveAnalysisAsync(new AnalysisRecord { FieldId = field.Id, Status = "done", ResultsJson = JsonSerializer.Serialize(result, PipelineJson.Options) }, CancellationToken.None);
-            await store.SaveModelFitAsync(new ModelFitRecord { Process = Process, Model = WaferReportService.CaptureRadiusModelName, ParamsJson = ModelJson.Serialize(point), Wafers = [wafer] },
+            await store.SaveModelFitAsync(new ModelFitRecord { Process = Process, Model = ModelKinds.CaptureRadius, ParamsJson = ModelJson.Serialize(point), Wafers = [wafer] },
                 CancellationToken.None);
         }
     }
@@ -121,8 +121,8 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
             await SeedWafersAsync(wafers, points, wires);
 
             await commands.RefitModelAsync(Process, "eng-1", CancellationToken.None);
-            var proposedRadius = (await wafers.GetModelFitsAsync(Process, WaferReportService.RadiusModelName, 5, CancellationToken.None)).Single();
-            var proposedArrhenius = (await wafers.GetModelFitsAsync(Process, WaferReportService.ArrheniusModelName, 5, CancellationToken.None)).Single();
+            var proposedRadius = (await wafers.GetModelFitsAsync(Process, ModelKinds.Radius, 5, CancellationToken.None)).Single();
+            var proposedArrhenius = (await wafers.GetModelFitsAsync(Process, ModelKinds.Arrhenius, 5, CancellationToken.None)).Single();
             Assert.Null(proposedRadius.AcceptedAt);
             Assert.Null(proposedArrhenius.AcceptedAt);
 

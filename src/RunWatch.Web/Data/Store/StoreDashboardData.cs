@@ -82,7 +82,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         string channel = chambers.FirstOrDefault(c => c.Definition.Name == run.Chamber)?.Definition.Channels
             .FirstOrDefault(ch => ch.Role == ChannelRole.GrowthTemperature)?.Name ?? "substrate_tc";
         ThermalResult? thermal = null;
-        double c = ConventionFactor(run.SummaryJson);
+        double c = RunThermalSummary.ConventionFactorOf(run);
         if (run.LEffNm is { } leff && run.TEffC is { } teff)
         {
             thermal = new ThermalResult(run.LNomNm ?? double.NaN, leff, teff, c, (run.Coverage ?? 0) * 100, double.NaN, double.NaN);
@@ -95,7 +95,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             summary = summary with { Verdict = verdicts.TryGetValue(run.Id, out string? v) ? v : null };
             prediction = await wafers.GetRunPredictionAsync(run.Id, cancellationToken).ConfigureAwait(false);
         }
-        return new RunDetail(summary, thermal, Excursions(run.ExcursionsJson, run.LEffNm), prediction, channel);
+        return new RunDetail(summary, thermal, Excursions(run.Excursions, run.LEffNm), prediction, channel);
     }
 
     public Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken) =>
@@ -295,52 +295,23 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
 
     private static RunSummary ToSummary(RunRecord r)
     {
-        GrowthWindow? window = null;
-        if (r.SummaryJson is { Length: > 0 } json)
-        {
-            using var doc = JsonDocument.Parse(json);
-            if (doc.RootElement.TryGetProperty("windowStartS", out var ws) && doc.RootElement.TryGetProperty("windowEndS", out var we))
-            {
-                window = new GrowthWindow(r.StartedAt.AddSeconds(ws.GetDouble()), r.StartedAt.AddSeconds(we.GetDouble()));
-            }
-        }
-        int excursions = 0;
-        if (r.ExcursionsJson is { Length: > 0 } ex)
-        {
-            using var doc = JsonDocument.Parse(ex);
-            excursions = doc.RootElement.GetArrayLength();
-        }
+        GrowthWindow? window = r.Summary is { } summary
+            ? new GrowthWindow(r.StartedAt.AddSeconds(summary.WindowStartS), r.StartedAt.AddSeconds(summary.WindowEndS))
+            : null;
         return new RunSummary(r.Name, r.Chamber, r.Recipe ?? "—", r.StartedAt, r.EndedAt, r.SetpointC ?? double.NaN,
-            TimeSpan.FromSeconds(r.PlannedSeconds ?? 0), window, r.Wafers, excursions, null);
+            TimeSpan.FromSeconds(r.PlannedSeconds ?? 0), window, r.Wafers, r.Excursions?.Count ?? 0, null);
     }
 
-    private static double ConventionFactor(string? summaryJson)
-    {
-        if (summaryJson is not { Length: > 0 })
-        {
-            return double.NaN;
-        }
-        using var doc = JsonDocument.Parse(summaryJson);
-        return doc.RootElement.TryGetProperty("conventionFactor", out var c) ? c.GetDouble() : double.NaN;
-    }
-
-    private static List<ExcursionView> Excursions(string? json, double? lEffNm)
+    private static List<ExcursionView> Excursions(IReadOnlyList<RunExcursionRecord>? excursions, double? lEffNm)
     {
         var list = new List<ExcursionView>();
-        if (json is not { Length: > 0 })
+        foreach (RunExcursionRecord e in excursions ?? [])
         {
-            return list;
-        }
-        using var doc = JsonDocument.Parse(json);
-        foreach (var e in doc.RootElement.EnumerateArray())
-        {
-            double changeNm = e.TryGetProperty("lengthChangeNm", out var ch) && ch.ValueKind == JsonValueKind.Number ? ch.GetDouble() : double.NaN;
-            string severity = e.GetProperty("severity").GetString() ?? "";
-            list.Add(new ExcursionView(e.GetProperty("start").GetDateTimeOffset(), e.GetProperty("end").GetDateTimeOffset(),
-                e.GetProperty("peakDeviationK").GetDouble(),
-                severity.Contains("alarm", StringComparison.OrdinalIgnoreCase) ? AlertSeverity.Alarm : AlertSeverity.Warning,
+            double changeNm = e.LengthChangeNm ?? double.NaN;
+            list.Add(new ExcursionView(e.Start, e.End, e.PeakDeviationK,
+                e.Severity == RunWatch.Core.Excursions.ExcursionSeverity.Alarm ? AlertSeverity.Alarm : AlertSeverity.Warning,
                 lEffNm is { } l && l > 0 ? changeNm / l * 100 : double.NaN,
-                !e.TryGetProperty("inGrowthWindow", out var inWindow) || inWindow.ValueKind != JsonValueKind.False));
+                e.InGrowthWindow));
         }
         return list;
     }

@@ -10,15 +10,12 @@ namespace RunWatch.Web.Data.Store;
 /// <summary>Process models: the Process model screen's view, acceptance, and the model the planner uses.</summary>
 public sealed partial class StoreWaferData
 {
-    private const string RadiusModel = "radius";
-    private const string CaptureRadiusModel = "capture-radius";
-    private const string ArrheniusModel = "arrhenius";
     private const int MaxRadiusPoints = 5000;
 
     public async Task<ProcessModelView?> GetProcessModelAsync(string process, CancellationToken cancellationToken)
     {
-        var radius = await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false);
-        var arrheniusFits = await wafers.GetModelFitsAsync(process, ArrheniusModel, 50, cancellationToken).ConfigureAwait(false);
+        var radius = await wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false);
+        var arrheniusFits = await wafers.GetModelFitsAsync(process, ModelKinds.Arrhenius, 50, cancellationToken).ConfigureAwait(false);
         if (radius.Count == 0 && arrheniusFits.Count == 0)
         {
             return null;
@@ -29,7 +26,7 @@ public sealed partial class StoreWaferData
         RadiusFit current = shown is null ? new RadiusFit(RadiusModelForm.Linear, double.NaN, double.NaN, double.NaN, double.NaN, 0, DateTimeOffset.MinValue) : ToRadiusFit(shown);
         ArrheniusFit arrhenius = (acceptedArrhenius ?? candidateArrhenius) is { } a ? ToArrhenius(a) : new ArrheniusFit(double.NaN, double.NaN, double.NaN);
         var points = new List<ArrheniusPoint>();
-        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, CaptureRadiusModel, 500, cancellationToken).ConfigureAwait(false))
+        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, ModelKinds.CaptureRadius, 500, cancellationToken).ConfigureAwait(false))
         {
             using var doc = JsonDocument.Parse(r.ParamsJson);
             JsonElement e = doc.RootElement;
@@ -56,13 +53,13 @@ public sealed partial class StoreWaferData
     public async Task<string> AcceptModelAsync(string process, string user, CancellationToken cancellationToken)
     {
         var accepted = new List<string>();
-        foreach (string model in new[] { RadiusModel, ArrheniusModel })
+        foreach (string model in new[] { ModelKinds.Radius, ModelKinds.Arrhenius })
         {
             var fits = await wafers.GetModelFitsAsync(process, model, 50, cancellationToken).ConfigureAwait(false);
             if (AcceptedAndProposed(fits).Proposed is { } proposed)
             {
                 await wafers.AcceptModelFitAsync(proposed.Id, user, cancellationToken).ConfigureAwait(false);
-                accepted.Add(model == RadiusModel ? "radius model " + Describe(ToRadiusFit(proposed)) : "Arrhenius fit " + Describe(ToArrhenius(proposed)));
+                accepted.Add(model == ModelKinds.Radius ? "radius model " + Describe(ToRadiusFit(proposed)) : "Arrhenius fit " + Describe(ToArrhenius(proposed)));
             }
         }
         if (accepted.Count == 0)
@@ -81,9 +78,9 @@ public sealed partial class StoreWaferData
     {
         ArgumentNullException.ThrowIfNull(defaults);
         ModelFitRecord? radius = process.Length == 0 ? null
-            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, RadiusModel, 50, cancellationToken).ConfigureAwait(false)).Accepted;
+            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false)).Accepted;
         ModelFitRecord? arrhenius = process.Length == 0 ? null
-            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, ArrheniusModel, 50, cancellationToken).ConfigureAwait(false)).Accepted;
+            : AcceptedAndProposed(await wafers.GetModelFitsAsync(process, ModelKinds.Arrhenius, 50, cancellationToken).ConfigureAwait(false)).Accepted;
         RadiusModelForm form = RadiusModelForm.Linear;
         double a = defaults.RadiusInterceptNm;
         double b = defaults.RadiusSlopeNm;
@@ -116,7 +113,7 @@ public sealed partial class StoreWaferData
     {
         var wanted = new HashSet<string>(waferIds, StringComparer.Ordinal);
         var counts = new Dictionary<double, int>();
-        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, CaptureRadiusModel, 1000, cancellationToken).ConfigureAwait(false))
+        foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, ModelKinds.CaptureRadius, 1000, cancellationToken).ConfigureAwait(false))
         {
             CoreArrheniusPoint point = ModelJson.Deserialize<CoreArrheniusPoint>(r.ParamsJson);
             if (wanted.Remove(point.WaferId) && point.ConventionFactor > 0)

@@ -9,10 +9,13 @@ namespace RunWatch.Web.Tests.Data.Store;
 public sealed class StoreRunFiguresTests : IDisposable
 {
     private static readonly DateTimeOffset Start = new(2026, 4, 1, 8, 0, 0, TimeSpan.Zero);
-    private const string RampAndGrowthExcursions = """
-        [{"start":"2026-04-01T10:00:10Z","end":"2026-04-01T10:00:40Z","peakDeviationK":-36,"severity":"Alarm","lengthChangeNm":0,"closed":true,"inGrowthWindow":false},
-         {"start":"2026-04-01T10:05:00Z","end":"2026-04-01T10:05:09Z","peakDeviationK":6,"severity":"Warning","lengthChangeNm":1.25,"closed":true,"inGrowthWindow":true}]
-        """;
+    private static readonly RunExcursionRecord[] RampAndGrowthExcursions =
+    [
+        new(new DateTimeOffset(2026, 4, 1, 10, 0, 10, TimeSpan.Zero), new DateTimeOffset(2026, 4, 1, 10, 0, 40, TimeSpan.Zero), 30, -36, 574,
+            RunWatch.Core.Excursions.ExcursionSeverity.Alarm, 0, Closed: true, InGrowthWindow: false),
+        new(new DateTimeOffset(2026, 4, 1, 10, 5, 0, TimeSpan.Zero), new DateTimeOffset(2026, 4, 1, 10, 5, 9, TimeSpan.Zero), 9, 6, 616,
+            RunWatch.Core.Excursions.ExcursionSeverity.Warning, 1.25, Closed: true, InGrowthWindow: true),
+    ];
 
     private readonly StoreHarness _harness = new();
 
@@ -25,7 +28,7 @@ public sealed class StoreRunFiguresTests : IDisposable
         var other = await store.SaveRunAsync(new RunRecord
         {
             Chamber = "inv-1", Name = "R-INV-8", StartedAt = Start.AddHours(2), Status = RunStatus.Open, LEffNm = 250,
-            ExcursionsJson = RampAndGrowthExcursions,
+            Excursions = RampAndGrowthExcursions,
         }, CancellationToken.None);
         await store.UpsertWaferAsync("W-A", run.Id, "nw-inv", CancellationToken.None);
         await store.UpsertWaferAsync("W-B", run.Id, "nw-inv", CancellationToken.None);

@@ -1,0 +1,17 @@
+namespace RunWatch.Storage;
+
+/// <summary>
+/// The kinds of stored model fit (<see cref="ModelFitRecord.Model"/>). Defined here once: the wafer room writes
+/// them, the dashboard and the executable read them.
+/// </summary>
+public static class ModelKinds
+{
+    /// <summary>A process's radius model (radius against the normalised capture area).</summary>
+    public const string Radius = "radius";
+
+    /// <summary>A wafer's best-fit capture radius: one point of the Arrhenius calibration.</summary>
+    public const string CaptureRadius = "capture-radius";
+
+    /// <summary>A process's Arrhenius calibration (Ea, D0).</summary>
+    public const string Arrhenius = "arrhenius";
+}

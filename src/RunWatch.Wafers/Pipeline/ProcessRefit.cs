@@ -1,0 +1,21 @@
+using System.Globalization;
+using RunWatch.Core.Model;
+using RunWatch.Storage;
+
+namespace RunWatch.Wafers.Pipeline;
+
+/// <summary>What a refit proposed: the radius model and the Arrhenius calibration, each null when it could not be fitted.</summary>
+public sealed record ProcessRefit(string Process, RadiusModelFit? Radius, ModelFitRecord? RadiusRecord, ArrheniusFit? Arrhenius, ModelFitRecord? ArrheniusRecord)
+{
+    /// <summary>One sentence for the audit log.</summary>
+    public string Describe()
+    {
+        string radius = Radius is { } r
+            ? string.Create(CultureInfo.InvariantCulture, $"radius model {r.Formula()} (r² {r.RSquared:0.###}, {r.Count} wires, {RadiusRecord!.Wafers.Count} wafers)")
+            : "no radius model (too few measured wires)";
+        string arrhenius = Arrhenius is { } a
+            ? string.Create(CultureInfo.InvariantCulture, $"Arrhenius Ea {a.ActivationEnergy.Value:0.###} eV, D0 {a.Prefactor.Value:0.###e+0} cm²/s ({a.Count} wafers)")
+            : "no Arrhenius fit (needs located capture radii at two or more temperatures)";
+        return $"proposed {radius}; {arrhenius}";
+    }
+}

@@ -1,0 +1,61 @@
+namespace RunWatch.Wafers.Pipeline;
+
+/// <summary>How SEM fields are analysed and wafer reports written. Bound from the <c>WaferPipeline</c> section.</summary>
+public sealed class WaferPipelineOptions
+{
+    public const string SectionName = "WaferPipeline";
+
+    /// <summary>Folder for report files (relative paths are under the data folder). Default <c>reports</c>.</summary>
+    public string ReportsFolder { get; set; } = "reports";
+
+    /// <summary>Fields waiting for analysis at most; intake waits when the queue is full. Default 64.</summary>
+    public int QueueCapacity { get; set; } = 64;
+
+    /// <summary>Process (recipe family) used when neither the wafer nor its run names one. Default <c>default</c>.</summary>
+    public string DefaultProcess { get; set; } = "default";
+
+    /// <summary>Pixel size for fields that carry none (no sidecar, no TIFF tags), nm; null = such fields fail with a reason.</summary>
+    public double? DefaultPixelSizeNm { get; set; }
+
+    /// <summary>Seed of the nucleation-site simulation behind the prediction before SEM (reproducible). Default 1.</summary>
+    public int PredictionSeed { get; set; } = 1;
+
+    /// <summary>Simulated fields per prediction. Default 8.</summary>
+    public int PredictionFields { get; set; } = 8;
+
+    /// <summary>Search range of the best-fit capture radius, as multiples of the run's L_eff. Default 0.25 … 3.</summary>
+    public double CaptureRadiusSearchMin { get; set; } = 0.25;
+
+    public double CaptureRadiusSearchMax { get; set; } = 3.0;
+
+    /// <summary>Returns the problems with these options, empty when valid.</summary>
+    public IReadOnlyList<string> Validate()
+    {
+        var problems = new List<string>();
+        if (string.IsNullOrWhiteSpace(ReportsFolder))
+        {
+            problems.Add("WaferPipeline:ReportsFolder is empty");
+        }
+        if (QueueCapacity is < 1 or > 100_000)
+        {
+            problems.Add("WaferPipeline:QueueCapacity must be 1 … 100000");
+        }
+        if (string.IsNullOrWhiteSpace(DefaultProcess))
+        {
+            problems.Add("WaferPipeline:DefaultProcess is empty");
+        }
+        if (DefaultPixelSizeNm is { } p && !(p > 0 && double.IsFinite(p)))
+        {
+            problems.Add("WaferPipeline:DefaultPixelSizeNm must be a positive number");
+        }
+        if (PredictionFields is < 1 or > 1000)
+        {
+            problems.Add("WaferPipeline:PredictionFields must be 1 … 1000");
+        }
+        if (!(CaptureRadiusSearchMin > 0 && CaptureRadiusSearchMax > CaptureRadiusSearchMin))
+        {
+            problems.Add("WaferPipeline:CaptureRadiusSearchMin must be > 0 and below CaptureRadiusSearchMax");
+        }
+        return problems;
+    }
+}

@@ -1,0 +1,60 @@
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Options;
+using RunWatch.Core.Qc;
+using RunWatch.Wafers.Intake;
+using RunWatch.Storage;
+using RunWatch.Storage.Sqlite;
+
+namespace RunWatch.Wafers.Pipeline;
+
+/// <summary>Registers the wafer pipeline: drop-folder intake, the analysis queue and worker, and report writing.</summary>
+public static class WaferPipelineServiceCollectionExtensions
+{
+    /// <summary>
+    /// Binds and validates <see cref="IntakeOptions"/>, <see cref="WaferPipelineOptions"/> and <see cref="QcOptions"/>,
+    /// registers <see cref="IWaferStore"/> over the SQLite store, report writing (judged by the store's
+    /// <see cref="QcSpecificationCatalog"/>) and process calibration, and adds the intake and analysis hosted services.
+    /// Call after the store is registered.
+    /// </summary>
+    public static IServiceCollection AddRunWatchWaferPipeline(this IServiceCollection services, IConfiguration configuration, bool runWorkers = true)
+    {
+        ArgumentNullException.ThrowIfNull(services);
+        ArgumentNullException.ThrowIfNull(configuration);
+        services.AddOptions<IntakeOptions>()
+            .Bind(configuration.GetSection(IntakeOptions.SectionName))
+            .Validate(o => o.Validate().Count == 0, "Intake options are invalid (see the log for each problem)")
+            .ValidateOnStart();
+        services.AddOptions<WaferPipelineOptions>()
+            .Bind(configuration.GetSection(WaferPipelineOptions.SectionName))
+            .Validate(o => o.Validate().Count == 0, "WaferPipeline options are invalid")
+            .ValidateOnStart();
+        services.AddOptions<QcOptions>()
+            .Bind(configuration.GetSection(QcOptions.SectionName))
+            .Validate(o => o.Validate().Count == 0, "Qc specifications are invalid")
+            .ValidateOnStart();
+        services.TryAddSingleton(TimeProvider.System);
+        services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+        services.TryAddSingleton(sp => new FieldAnalysisQueue(sp.GetRequiredService<IOptions<WaferPipelineOptions>>().Value.QueueCapacity));
+        services.TryAddSingleton(sp => new FieldIntake(
+            sp.GetRequiredService<IWaferStore>(),
+            sp.GetRequiredService<IRunWatchStore>(),
+            sp.GetRequiredService<FieldAnalysisQueue>(),
+            sp.GetRequiredService<IOptions<IntakeOptions>>().Value.FileNamePattern,
+            sp.GetRequiredService<TimeProvider>(),
+            sp.GetService<ILogger<FieldIntake>>()));
+        services.TryAddSingleton<WaferReportService>();
+        services.TryAddSingleton<ProcessCalibrationService>();
+        if (runWorkers)
+        {
+            services.TryAddSingleton<FieldIntakeService>();
+            services.TryAddSingleton<FieldAnalysisService>();
+            services.AddHostedService(sp => sp.GetRequiredService<FieldIntakeService>());
+            services.AddHostedService(sp => sp.GetRequiredService<FieldAnalysisService>());
+        }
+        return services;
+    }
+}

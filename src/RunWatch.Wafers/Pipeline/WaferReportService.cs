@@ -1,0 +1,245 @@
+using System.Globalization;
+using System.Text.Json;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Logging.Abstractions;
+using Microsoft.Extensions.Options;
+using RunWatch.Core.Excursions;
+using RunWatch.Core.Model;
+using RunWatch.Core.Qc;
+using RunWatch.Core.Thermal;
+using RunWatch.Reports;
+using RunWatch.Reports.Model;
+using RunWatch.Storage;
+
+namespace RunWatch.Wafers.Pipeline;
+
+/// <summary>
+/// Gathers a wafer's run, fields and analyses from the store, evaluates it and writes its report files (HTML, PDF,
+/// CSV of every wire, JSON summary) into <c>reports/{wafer}/</c>, recording each in the store.
+/// </summary>
+public sealed class WaferReportService
+{
+    private readonly IRunWatchStore _store;
+    private readonly IWaferStore _wafers;
+    private readonly WaferPipelineOptions _options;
+    private readonly QcOptions _qc;
+    private readonly QcSpecificationCatalog? _specifications;
+    private readonly string _reportsRoot;
+    private readonly TimeProvider _time;
+    private readonly ILogger _logger;
+
+    public WaferReportService(IRunWatchStore store, IWaferStore wafers, IOptions<WaferPipelineOptions> options, IOptions<QcOptions> qc,
+        IOptions<StorageOptions> storage, TimeProvider time, ILogger<WaferReportService>? logger = null, QcSpecificationCatalog? specifications = null)
+    {
+        _store = store;
+        _wafers = wafers;
+        _options = options.Value;
+        _qc = qc.Value;
+        _specifications = specifications;
+        _reportsRoot = Path.GetFullPath(Path.Combine(storage.Value.DataDirectory, _options.ReportsFolder));
+        _time = time;
+        _logger = (ILogger?)logger ?? NullLogger.Instance;
+    }
+
+    /// <summary>Folder where overlays and reports of <paramref name="wafer"/> go.</summary>
+    public string FolderFor(string wafer) => Path.Combine(_reportsRoot, SafeFolderName(wafer));
+
+    /// <summary>Evaluates the wafer and writes its report files.</summary>
+    /// <exception cref="KeyNotFoundException">The wafer is unknown or has no analysed field.</exception>
+    public async Task<WaferReportOutcome> WriteAsync(string wafer, CancellationToken cancellationToken)
+    {
+        WaferRecord record = await _wafers.GetWaferAsync(wafer, cancellationToken).ConfigureAwait(false)
+            ?? throw new KeyNotFoundException($"wafer {wafer} is not known");
+        RunRecord? run = await _wafers.FindRunOfWaferAsync(wafer, cancellationToken).ConfigureAwait(false);
+        var fields = new List<FieldResult>();
+        var thumbnails = new List<FieldThumbnail>();
+        string folder = FolderFor(wafer);
+        foreach (FieldRecord field in await _wafers.GetFieldsOfWaferAsync(wafer, cancellationToken).ConfigureAwait(false))
+        {
+            if (field.Status != FieldStatus.Analysed)
+            {
+                continue;
+            }
+            AnalysisRecord? analysis = await _wafers.GetLatestAnalysisAsync(field.Id, cancellationToken).ConfigureAwait(false);
+            if (analysis?.ResultsJson is null)
+            {
+                continue;
+            }
+            FieldResult result = JsonSerializer.Deserialize<FieldResult>(analysis.ResultsJson, PipelineJson.Options)
+                ?? throw new InvalidDataException($"analysis {analysis.Id} has empty results");
+            fields.Add(result);
+            string overlay = WaferFiles.OverlayPath(folder, field.Id);
+            if (File.Exists(overlay))
+            {
+                thumbnails.Add(new FieldThumbnail(result.FieldName, await File.ReadAllBytesAsync(overlay, cancellationToken).ConfigureAwait(false),
+                    Caption(result), result.Wires.Count));
+            }
+        }
+        if (fields.Count == 0)
+        {
+            throw new KeyNotFoundException($"wafer {wafer} has no analysed field yet");
+        }
+
+        string recipe = run?.Recipe ?? record.Process ?? _options.DefaultProcess;
+        string process = record.Process ?? recipe;
+        RadiusModelFit? accepted = await AcceptedModelAsync(process, cancellationToken).ConfigureAwait(false);
+        RunExcursions excursions = RunExcursions.From(run);
+        // The stored specification (seeded from configuration, edited by admins) when the store keeps them.
+        QcSpecification specification = _specifications is null
+            ? _qc.SpecificationFor(recipe)
+            : await _specifications.SpecificationForAsync(recipe, cancellationToken).ConfigureAwait(false);
+        var evaluation = WaferEvaluator.Evaluate(new WaferEvaluationInput
+        {
+            WaferId = wafer,
+            Recipe = recipe,
+            Fields = fields,
+            AcceptedModel = accepted,
+            Thermal = new RunThermalFacts(run?.LEffNm, run?.Coverage, excursions.Count, excursions.MaxAbsRelativeLChange),
+            Specification = specification,
+            PredictionSeed = _options.PredictionSeed,
+            PredictionFields = _options.PredictionFields,
+            CaptureRadiusSearchMin = _options.CaptureRadiusSearchMin,
+            CaptureRadiusSearchMax = _options.CaptureRadiusSearchMax,
+        });
+        if (evaluation.ModelFittedOnThisWafer && evaluation.Model is not null)
+        {
+            // Proposed, never accepted automatically: a person accepts process models.
+            await _wafers.SaveModelFitAsync(new ModelFitRecord
+            {
+                Process = process,
+                Model = ModelKinds.Radius,
+                FittedAt = _time.GetUtcNow(),
+                ParamsJson = ModelJson.Serialize(evaluation.Model),
+                RSquared = evaluation.Model.RSquared,
+                RmseNm = evaluation.Model.RmseNm,
+                Wafers = [wafer],
+            }, cancellationToken).ConfigureAwait(false);
+        }
+
+        if (evaluation.BestCaptureRadius is { } best && run?.TEffC is { } tEffC)
+        {
+            // One point of the process's Arrhenius calibration: this wafer's best-fit capture radius at its T_eff.
+            GrowthWindow window = RunThermalSummary.GrowthWindowOf(run);
+            var point = new ArrheniusPoint(wafer, best.CaptureRadiusNm, window.DurationS, PhysicalConstants.CelsiusToKelvin(tEffC), RunThermalSummary.ConventionFactorOf(run));
+            await _wafers.SaveModelFitAsync(new ModelFitRecord
+            {
+                Process = process,
+                Model = ModelKinds.CaptureRadius,
+                FittedAt = _time.GetUtcNow(),
+                ParamsJson = ModelJson.Serialize(point),
+                RSquared = best.Fit.RSquared,
+                RmseNm = best.Fit.RmseNm,
+                Wafers = [wafer],
+            }, cancellationToken).ConfigureAwait(false);
+        }
+
+        ThermalSummary thermal = await ThermalAsync(run, excursions, cancellationToken).ConfigureAwait(false);
+        var notes = new List<string> { "Generated by RunWatch" };
+        notes.AddRange(evaluation.Notes);
+        foreach (FieldResult f in fields)
+        {
+            foreach (string n in f.Notes)
+            {
+                notes.Add(f.FieldName + ": " + n);
+            }
+        }
+        var report = new WaferReport(
+            new ReportIdentity(wafer, run?.Name ?? "unknown run", recipe, run?.Chamber ?? "unknown chamber", run?.StartedAt ?? record.CreatedAt,
+                run?.EndedAt, _time.GetUtcNow(), typeof(WaferReportService).Assembly.GetName().Version?.ToString() ?? "dev", DataLabel(run), notes),
+            thermal,
+            thumbnails,
+            evaluation.Wires,
+            evaluation.Statistics ?? EmptyStatistics(evaluation),
+            evaluation.Model,
+            run?.LEffNm ?? double.NaN,
+            evaluation.Prediction,
+            evaluation.Comparison,
+            evaluation.Verdict);
+
+        ReportFiles written = await Task.Run(() => RunWatch.Reports.WaferReportWriter.WriteAll(report, folder), cancellationToken).ConfigureAwait(false);
+        var files = new Dictionary<string, string>(StringComparer.Ordinal)
+        {
+            ["html"] = written.HtmlPath,
+            ["pdf"] = written.PdfPath,
+            ["csv"] = written.CsvPath,
+            ["json"] = written.JsonPath,
+        };
+        string summary = await File.ReadAllTextAsync(written.JsonPath, cancellationToken).ConfigureAwait(false);
+        string verdict = evaluation.Verdict.Outcome.ToString().ToLowerInvariant();
+        foreach (var (format, path) in files)
+        {
+            await _wafers.SaveReportAsync(new WaferReportRecord(0, wafer, _time.GetUtcNow(), verdict, format, path, format == "json" ? summary : null), cancellationToken).ConfigureAwait(false);
+        }
+        Log.ReportWritten(_logger, wafer, verdict, folder);
+        return new WaferReportOutcome(wafer, evaluation.Verdict, folder, files);
+    }
+
+
+    /// <summary>Folder name for a wafer id: the report writer's safe file name, never a path.</summary>
+    public static string SafeFolderName(string wafer) => RunWatch.Reports.WaferReportWriter.SafeFileName(wafer);
+
+    private async Task<RadiusModelFit?> AcceptedModelAsync(string process, CancellationToken cancellationToken)
+    {
+        foreach (ModelFitRecord fit in await _wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false))
+        {
+            if (fit.AcceptedAt is not null)
+            {
+                return ModelJson.Deserialize<RadiusModelFit>(fit.ParamsJson);
+            }
+        }
+        return null;
+    }
+
+    private async Task<ThermalSummary> ThermalAsync(RunRecord? run, RunExcursions excursions, CancellationToken cancellationToken)
+    {
+        var times = new List<double>();
+        var temps = new List<double>();
+        double windowStart = 0;
+        double windowEnd = 0;
+        if (run is not null)
+        {
+            DateTimeOffset end = run.EndedAt ?? _time.GetUtcNow();
+            var (channel, _) = await GrowthChannelAsync(run.Chamber, cancellationToken).ConfigureAwait(false);
+            if (channel is not null)
+            {
+                foreach (SampleRecord s in await _store.GetSamplesAsync(run.Chamber, channel, run.StartedAt, end.AddTicks(1), 200_000, cancellationToken).ConfigureAwait(false))
+                {
+                    times.Add((s.Timestamp - run.StartedAt).TotalSeconds);
+                    temps.Add(s.Value);
+                }
+            }
+            (windowStart, windowEnd) = RunThermalSummary.GrowthWindowOf(run);
+        }
+        return new ThermalSummary(times, temps, run?.SetpointC, windowStart, windowEnd, excursions.Rows,
+            run?.LNomNm ?? double.NaN, run?.LEffNm ?? double.NaN, run?.TEffC ?? double.NaN, RunThermalSummary.ConventionFactorOf(run),
+            run?.Coverage ?? double.NaN, "gaps longer than the configured limit are reported and mark the run incomplete; nothing is interpolated across them");
+    }
+
+    private async Task<(string? Channel, string Unit)> GrowthChannelAsync(string chamber, CancellationToken cancellationToken)
+    {
+        foreach (RegisteredChamber c in await _store.ListChambersAsync(cancellationToken).ConfigureAwait(false))
+        {
+            if (c.Definition.Name != chamber)
+            {
+                continue;
+            }
+            foreach (RegisteredChannel ch in c.Channels)
+            {
+                if (ch.Definition.Role == ChannelRole.GrowthTemperature)
+                {
+                    return (ch.Definition.Name, ch.Definition.Unit);
+                }
+            }
+        }
+        return (null, "");
+    }
+
+    private static string Caption(FieldResult f) => string.Create(CultureInfo.InvariantCulture,
+        $"{f.FieldName}: {f.Wires.Count} objects, {f.PixelSizeNm:0.##} nm/px, threshold {f.Threshold}");
+
+    private static string DataLabel(RunRecord? run) => run is null ? "run unknown" : "recorded telemetry";
+
+    private static WireStatistics EmptyStatistics(WaferEvaluation e) =>
+        new(e.Wires.Count, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, 0, double.NaN);
+
+}
