@@ -33,6 +33,15 @@ public sealed record FieldAnalysis
     /// <summary>Rows at the bottom excluded from analysis.</summary>
     public required int ExcludedBottomRows { get; init; }
 
+    /// <summary>Rows of an information strip found at the top and left out (0 when none).</summary>
+    public int ExcludedTopRows { get; init; }
+
+    /// <summary>Length of the scale bar found in the information strip, px; null when none was found.</summary>
+    public int? ScaleBarPixels { get; init; }
+
+    /// <summary>That bar's length at the configured scale, in <see cref="LengthUnit"/>: compare it with the number printed on it.</summary>
+    public double? ScaleBarLength { get; init; }
+
     /// <summary>Where the excluded band came from: "sidecar", "given", "detected" or "none".</summary>
     public required string ExcludedBandSource { get; init; }
 

@@ -41,7 +41,54 @@ public static partial class FieldAnalyzer
         return Run(image, name, sidecar, options, 0);
     }
 
+    /// <summary>
+    /// A strip at the top is cut off and the rest analysed as its own image; positions are then shifted back and the
+    /// label rasters padded, so callers see the whole field's coordinates.
+    /// </summary>
     private static (FieldAnalysis, FieldRaster) Run(GrayImage image, string name, FieldSidecar? sidecar, FieldAnalysisOptions options, double decodeMs)
+    {
+        int w = image.Width, h = image.Height;
+        bool detect = options.DetectInfoStrip && sidecar?.ExcludedBottomRows is null && options.ExcludedBottomRows is null;
+        int top = detect ? InfoStripDetector.DetectTopRows(image.Pixels, w, h) : 0;
+        if (top == 0 || top >= h - 8)
+        {
+            return RunRows(image, name, sidecar, options, decodeMs);
+        }
+        var below = new GrayImage(w, h - top, image.Pixels[(top * w)..])
+        {
+            SourceBitsPerPixel = image.SourceBitsPerPixel,
+            SourceFormat = image.SourceFormat,
+            Resolution = image.Resolution,
+        };
+        (FieldAnalysis a, FieldRaster r) = RunRows(below, name, sidecar, options, decodeMs);
+        double lengthScale = a.Scale.HasScale ? a.Scale.PixelSizeNm!.Value : 1;
+        double cosTilt = sidecar?.TiltDeg is { } t && Math.Abs(t) > 1 ? Math.Cos(t * Math.PI / 180) : 1;
+        double shift = top / cosTilt * lengthScale;
+        var wires = a.Wires.Select(wire => wire with { CentroidY = wire.CentroidY + shift }).ToArray();
+        var labels = new int[w * h];
+        Array.Copy(r.Labels, 0, labels, top * w, r.Labels.Length);
+        int[]? zones = null;
+        if (r.ZoneMap is not null)
+        {
+            zones = new int[w * h];
+            Array.Copy(r.ZoneMap, 0, zones, top * w, r.ZoneMap.Length);
+        }
+        int? bar = ScaleBarDetector.Measure(image.Pixels, w, 0, top);
+        var notes = new List<string>(a.Notes);
+        ScaleBarCheck.AddNote(notes, bar, a.Scale);
+        FieldAnalysis shifted = a with
+        {
+            Height = h,
+            Wires = wires,
+            ExcludedTopRows = top,
+            ScaleBarPixels = bar,
+            ScaleBarLength = bar * lengthScale,
+            Notes = notes,
+        };
+        return (shifted, new FieldRaster(image, labels, zones, r.ValidHeight + top));
+    }
+
+    private static (FieldAnalysis, FieldRaster) RunRows(GrayImage image, string name, FieldSidecar? sidecar, FieldAnalysisOptions options, double decodeMs)
     {
         var timings = new List<StageTiming>();
         if (decodeMs > 0)
@@ -76,6 +123,8 @@ public static partial class FieldAnalyzer
             notes.Add("the excluded band would cover the whole image; it was ignored");
         }
         int validH = h - bandRows;
+        int? scaleBar = bandRows >= 4 ? ScaleBarDetector.Measure(image.Pixels, w, validH, bandRows) : null;
+        ScaleBarCheck.AddNote(notes, scaleBar, scale);
         Mark("band");
 
         // One 16-bit work image serves first as the flattened image, then as the zones' column pass.
@@ -114,9 +163,11 @@ public static partial class FieldAnalyzer
             Mark("edge zones");
         }
 
-        (wires, FieldStatistics stats) = Summarise(wires, w, validH, lengthScale, scale.HasScale, lengthL, zoneAreas, notes);
+        // Statistics and point patterns work in the sample plane: the analysed rows stretched by 1/cos θ.
+        int planeH = (int)Math.Round(validH / cosTilt);
+        (wires, FieldStatistics stats) = Summarise(wires, w, planeH, lengthScale, scale.HasScale, lengthL, zoneAreas, notes);
         Mark("statistics");
-        (wires, stats) = AddPointPatterns(wires, stats, w, validH, lengthScale, lengthL, notes);
+        (wires, stats) = AddPointPatterns(wires, stats, w, planeH, lengthScale, lengthL, notes);
         Mark("point patterns");
         if (wires.Length == 0)
         {
@@ -138,6 +189,8 @@ public static partial class FieldAnalyzer
             WaferId = sidecar?.WaferId,
             FieldPosition = sidecar?.FieldPosition,
             TiltDeg = sidecar?.TiltDeg,
+            ScaleBarPixels = scaleBar,
+            ScaleBarLength = scaleBar * (scale.HasScale ? scale.PixelSizeNm!.Value : 1),
             EdgeSigmaPixels = edgeSigma,
             EdgeOffsetPixels = edgeOffset,
             RadiusMethod = options.SubPixelEdges ? "half-maximum edge along 48 rays, blur-corrected (docs/imaging.md)" : "threshold outline area",
