@@ -53,7 +53,7 @@ public static partial class IngestServiceCollectionExtensions
         services.AddSingleton<IValidateOptions<IngestOptions>, BatchFitsReceiveMaximum>();
         services.AddOptions<ChambersOptions>()
             .Configure(o => configuration.GetSection(ChambersOptions.SectionName).Bind(o.Items))
-            .Validate(o => o.Validate().Count == 0, "Chambers: invalid configuration (see the chamber list in config/README.md)")
+            .ValidateErrorList(ChambersOptions.SectionName, o => o.Validate())
             .ValidateOnStart();
 
         services.TryAddSingleton<ChamberRegistryHolder>();

@@ -9,7 +9,7 @@ using Microsoft.Extensions.Logging;
 using Microsoft.Playwright;
 using RunWatch.Core.Charting;
 using RunWatch.Web.Data;
-using RunWatch.Web.Data.InMemory;
+using RunWatch.Testing.Dashboard;
 using RunWatch.Web.Hosting;
 using RunWatch.Web.Security;
 
@@ -163,7 +163,7 @@ internal sealed class DashboardBenchmark : IBenchmark
         builder.AddRunWatchDashboard();
         builder.Services.AddSingleton<IDashboardQueries>(data);
         builder.Services.AddSingleton<IDashboardCommands>(data);
-        builder.Services.AddSingleton<IPlannerEngine>(new ScenarioPlanner());
+        builder.Services.AddSingleton<IPlannerEngine>(new RunWatch.Web.Data.Store.ProcessModelPlanner(Microsoft.Extensions.Options.Options.Create(new RunWatch.Web.DashboardOptions())));
         var app = builder.Build();
         app.Services.GetRequiredService<UserDirectory>().AddWithPassword("bench", DashboardRoles.Viewer, Password);
         app.MapRunWatchDashboard();

@@ -12,13 +12,16 @@ public static class ArrheniusCalibration
 
     private const double CentimetresPerNanometre = 1e-7;
 
-    /// <summary>ln(D / (cm²/s)) for one point.</summary>
-    public static double LnDiffusivity(ArrheniusPoint point)
+    /// <summary>D = L²/(c·t) in cm²/s for one point: its capture radius taken as the diffusion length.</summary>
+    public static double DiffusivityCmSqPerS(ArrheniusPoint point)
     {
         ArgumentNullException.ThrowIfNull(point);
         double lCm = point.CaptureRadiusNm * CentimetresPerNanometre;
-        return Math.Log(lCm * lCm / (point.ConventionFactor * point.GrowthDurationS));
+        return lCm * lCm / (point.ConventionFactor * point.GrowthDurationS);
     }
+
+    /// <summary>ln(D / (cm²/s)) for one point.</summary>
+    public static double LnDiffusivity(ArrheniusPoint point) => Math.Log(DiffusivityCmSqPerS(point));
 
     /// <summary>
     /// Fits Ea and D0. Needs wafers at two or more distinct temperatures. With exactly two wafers the line passes

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports.Model;
 
 namespace RunWatch.Reports.Csv;

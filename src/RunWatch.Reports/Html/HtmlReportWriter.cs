@@ -2,6 +2,7 @@ using System.Net;
 using System.Text;
 using RunWatch.Core.Model;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports.Model;
 using RunWatch.Reports.Rendering;
 using static RunWatch.Reports.Rendering.ReportFormat;

@@ -1,6 +1,7 @@
 using RunWatch.Core.Model;
 using RunWatch.Core.Model.Prediction;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports.Model;
 
 namespace RunWatch.Reports.Json;

@@ -1,5 +1,6 @@
 using RunWatch.Core.Model.Prediction;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Wafers;
 
 namespace RunWatch.Reports.Model;
 

@@ -1,6 +1,7 @@
 using RunWatch.Core.Model;
 using RunWatch.Core.Model.Prediction;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Wafers;
 
 namespace RunWatch.Reports.Model;
 

@@ -1,6 +1,7 @@
 using System.Globalization;
 using RunWatch.Core.Model;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports.Html;
 using RunWatch.Reports.Model;
 using RunWatch.Reports.Rendering;

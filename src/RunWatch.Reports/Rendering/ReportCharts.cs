@@ -1,5 +1,6 @@
 using RunWatch.Core.Model;
 using RunWatch.Core.Model.Prediction;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports.Model;
 using ScottPlot;
 

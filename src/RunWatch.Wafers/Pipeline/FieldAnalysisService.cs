@@ -3,6 +3,7 @@ using System.Text.Json;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
+using RunWatch.Core.Wafers;
 using RunWatch.Imaging.Analysis;
 using RunWatch.Imaging.Decoding;
 using RunWatch.Imaging.Scale;
@@ -89,7 +90,7 @@ public sealed class FieldAnalysisService(
                 WireCount = analysis.Wires.Count,
                 DiffusionLengthNm = run?.LEffNm,
                 SettingsJson = JsonSerializer.Serialize(new { settings.PixelSizeNm, settings.DiffusionLengthNm, settings.ManualThreshold, settings.MinWireAreaPixels }, PipelineJson.Options),
-                ResultsJson = JsonSerializer.Serialize(result, PipelineJson.Options),
+                ResultsJson = FieldResultJson.Write(result),
             }, cancellationToken).ConfigureAwait(false);
             await wafers.UpdateFieldAsync(field with
             {

@@ -1,3 +1,4 @@
+using RunWatch.Core.Wafers;
 using RunWatch.Imaging.Analysis;
 using RunWatch.Imaging.Measurement;
 

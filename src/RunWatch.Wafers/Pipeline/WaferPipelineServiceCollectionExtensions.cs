@@ -26,15 +26,15 @@ public static class WaferPipelineServiceCollectionExtensions
         ArgumentNullException.ThrowIfNull(configuration);
         services.AddOptions<IntakeOptions>()
             .Bind(configuration.GetSection(IntakeOptions.SectionName))
-            .Validate(o => o.Validate().Count == 0, "Intake options are invalid (see the log for each problem)")
+            .ValidateErrorList(IntakeOptions.SectionName, o => o.Validate())
             .ValidateOnStart();
         services.AddOptions<WaferPipelineOptions>()
             .Bind(configuration.GetSection(WaferPipelineOptions.SectionName))
-            .Validate(o => o.Validate().Count == 0, "WaferPipeline options are invalid")
+            .ValidateErrorList(WaferPipelineOptions.SectionName, o => o.Validate())
             .ValidateOnStart();
         services.AddOptions<QcOptions>()
             .Bind(configuration.GetSection(QcOptions.SectionName))
-            .Validate(o => o.Validate().Count == 0, "Qc specifications are invalid")
+            .ValidateErrorList(QcOptions.SectionName, o => o.Validate())
             .ValidateOnStart();
         services.TryAddSingleton(TimeProvider.System);
         services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());

@@ -1,5 +1,4 @@
 using System.Globalization;
-using System.Text.Json;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
@@ -7,6 +6,7 @@ using RunWatch.Core.Excursions;
 using RunWatch.Core.Model;
 using RunWatch.Core.Qc;
 using RunWatch.Core.Thermal;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports;
 using RunWatch.Reports.Model;
 using RunWatch.Storage;
@@ -65,8 +65,7 @@ public sealed class WaferReportService
             {
                 continue;
             }
-            FieldResult result = JsonSerializer.Deserialize<FieldResult>(analysis.ResultsJson, PipelineJson.Options)
-                ?? throw new InvalidDataException($"analysis {analysis.Id} has empty results");
+            FieldResult result = FieldResultJson.Read(analysis.ResultsJson);
             fields.Add(result);
             string overlay = WaferFiles.OverlayPath(folder, field.Id);
             if (File.Exists(overlay))
@@ -164,7 +163,7 @@ public sealed class WaferReportService
             ["csv"] = written.CsvPath,
             ["json"] = written.JsonPath,
         };
-        string summary = await File.ReadAllTextAsync(written.JsonPath, cancellationToken).ConfigureAwait(false);
+        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, evaluation.Verdict));
         string verdict = evaluation.Verdict.Outcome.ToString().ToLowerInvariant();
         foreach (var (format, path) in files)
         {

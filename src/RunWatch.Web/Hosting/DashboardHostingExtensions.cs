@@ -12,6 +12,7 @@ using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Safety;
+using RunWatch.Storage;
 using RunWatch.Web.Api;
 using RunWatch.Web.Components;
 using RunWatch.Web.Live;
@@ -41,8 +42,7 @@ public static partial class DashboardHostingExtensions
         var services = builder.Services;
         services.AddOptions<DashboardOptions>().Bind(builder.Configuration.GetSection(DashboardOptions.SectionName))
             .ValidateDataAnnotations()
-            .Validate(o => ReminderRuleSet.Check(DefaultReminders.All, o.ReminderThresholds).Count == 0,
-                "RunWatch:Dashboard:ReminderThresholds names an unknown rule, a rule without threshold, or a value that is not finite")
+            .ValidateErrorList(DashboardOptions.SectionName, o => ReminderRuleSet.Check(DefaultReminders.All, o.ReminderThresholds))
             .ValidateOnStart();
         services.TryAddSingleton(TimeProvider.System);
         services.TryAddSingleton<DashboardClock>();

@@ -44,6 +44,26 @@ public sealed class OptionsValidationTests
     }
 
     [Fact]
+    public void ValidateOnStart_TwoChamberProblems_EachReportedInItsOwnWords()
+    {
+        var settings = DaemonSettings.ForTestChamber(1883, "data");
+        settings["Chambers:0:Excursions:AlarmBandK"] = "1";
+        settings["Chambers:0:Process:D0CmSqPerS"] = "-1";
+        using var provider = Provider(settings);
+
+        var ex = Assert.Throws<OptionsValidationException>(() => provider.GetRequiredService<IOptions<ChambersOptions>>().Value);
+
+        // The same words the chamber list's own check gives, one failure each, not one generic line.
+        var chambers = new ChambersOptions();
+        new ConfigurationBuilder().AddInMemoryCollection(settings).Build().GetSection(ChambersOptions.SectionName).Bind(chambers.Items);
+        var expected = chambers.Validate().Select(e => "Chambers: " + e).ToList();
+        Assert.Equal(2, expected.Count);
+        Assert.Equal(expected, ex.Failures);
+        Assert.Contains(ex.Failures, f => f.Contains("chamber C1, Excursions:", StringComparison.Ordinal));
+        Assert.Contains(ex.Failures, f => f.Contains("chamber C1, Process:", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Validate_TestChamberDefaults_Pass()
     {
         using var provider = Provider(DaemonSettings.ForTestChamber(1883, "data"));

@@ -1,4 +1,5 @@
 using System.Globalization;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports.Csv;
 using RunWatch.Reports.Model;
 using RunWatch.Reports.Tests.Support;

@@ -1,3 +1,4 @@
+using RunWatch.Core.Wafers;
 using RunWatch.Reports.Model;
 using RunWatch.Reports.Tests.Support;
 using Xunit;

@@ -2,6 +2,7 @@ using MathNet.Numerics.Distributions;
 using RunWatch.Core.Model;
 using RunWatch.Core.Model.Prediction;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Wafers;
 using RunWatch.Reports.Model;
 using SkiaSharp;
 

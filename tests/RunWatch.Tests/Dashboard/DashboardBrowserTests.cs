@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using Microsoft.Playwright;
 using RunWatch.Web.Data;
-using RunWatch.Web.Data.InMemory;
+using RunWatch.Testing.Dashboard;
 using Xunit;
 
 namespace RunWatch.Tests.Dashboard;

@@ -6,7 +6,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using RunWatch.Web.Data;
-using RunWatch.Web.Data.InMemory;
+using RunWatch.Testing.Dashboard;
 using RunWatch.Web.Hosting;
 using RunWatch.Web.Live;
 using RunWatch.Web.Security;
@@ -57,7 +57,7 @@ internal sealed class DashboardTestHost : IAsyncDisposable
         }
         builder.Services.AddSingleton<IDashboardQueries>(data);
         builder.Services.AddSingleton<IDashboardCommands>(data);
-        builder.Services.AddSingleton<IPlannerEngine>(new ScenarioPlanner());
+        builder.Services.AddSingleton<IPlannerEngine>(new RunWatch.Web.Data.Store.ProcessModelPlanner(Microsoft.Extensions.Options.Options.Create(new RunWatch.Web.DashboardOptions())));
         var app = builder.Build();
         var users = app.Services.GetRequiredService<UserDirectory>();
         foreach (var role in DashboardRoles.All)

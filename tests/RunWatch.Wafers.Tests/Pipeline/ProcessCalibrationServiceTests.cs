@@ -2,6 +2,7 @@ using MathNet.Numerics;
 using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Model;
+using RunWatch.Core.Wafers;
 using RunWatch.Wafers.Pipeline;
 using RunWatch.Storage;
 using RunWatch.Storage.Sqlite;

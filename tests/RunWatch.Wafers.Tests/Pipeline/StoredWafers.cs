@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text.Json;
 using RunWatch.Core.Model;
+using RunWatch.Core.Wafers;
 using RunWatch.Wafers.Pipeline;
 using RunWatch.Storage;
 
@@ -39,7 +40,7 @@ internal static class StoredWafers
             FinishedAt = DateTimeOffset.UnixEpoch,
             Status = "done",
             WireCount = wires.Count,
-            ResultsJson = JsonSerializer.Serialize(result, PipelineJson.Options),
+            ResultsJson = FieldResultJson.Write(result),
         }, CancellationToken.None);
         if (capture is not null)
         {

@@ -1,7 +1,7 @@
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Safety;
 using RunWatch.Web;
-using RunWatch.Web.Data.InMemory;
+using RunWatch.Testing.Dashboard;
 using RunWatch.Web.Safety;
 using RunWatch.Web.Tests.Support;
 using Xunit;

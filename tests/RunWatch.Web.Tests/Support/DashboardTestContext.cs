@@ -7,7 +7,7 @@ using Microsoft.Extensions.Time.Testing;
 using RunWatch.Core.Safety;
 using RunWatch.Web;
 using RunWatch.Web.Data;
-using RunWatch.Web.Data.InMemory;
+using RunWatch.Testing.Dashboard;
 using RunWatch.Web.Live;
 using RunWatch.Web.Safety;
 
@@ -30,7 +30,7 @@ internal sealed class DashboardTestContext : BunitContext
         Services.AddSingleton<TimeProvider>(Time);
         Services.AddSingleton<IDashboardQueries>(Data);
         Services.AddSingleton<IDashboardCommands>(Data);
-        Services.AddSingleton<IPlannerEngine>(new ScenarioPlanner());
+        Services.AddSingleton<IPlannerEngine>(new RunWatch.Web.Data.Store.ProcessModelPlanner(Microsoft.Extensions.Options.Options.Create(new RunWatch.Web.DashboardOptions())));
         Services.AddSingleton(Hub);
         Services.AddSingleton<ITelemetryNotifier>(Hub);
         Services.AddSingleton<IOptions<DashboardOptions>>(Options.Create(new DashboardOptions { TimeZone = "UTC" }));

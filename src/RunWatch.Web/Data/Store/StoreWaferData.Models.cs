@@ -1,6 +1,7 @@
 using System.Globalization;
-using System.Text.Json;
 using RunWatch.Core.Model;
+using RunWatch.Core.Thermal;
+using RunWatch.Core.Wafers;
 using RunWatch.Storage;
 using CoreArrheniusFit = RunWatch.Core.Model.ArrheniusFit;
 using CoreArrheniusPoint = RunWatch.Core.Model.ArrheniusPoint;
@@ -28,15 +29,10 @@ public sealed partial class StoreWaferData
         var points = new List<ArrheniusPoint>();
         foreach (ModelFitRecord r in await wafers.GetModelFitsAsync(process, ModelKinds.CaptureRadius, 500, cancellationToken).ConfigureAwait(false))
         {
-            using var doc = JsonDocument.Parse(r.ParamsJson);
-            JsonElement e = doc.RootElement;
-            double l = Get(e, "captureRadiusNm") * 1e-7;
-            double t = Get(e, "growthDurationS");
-            double c = Get(e, "conventionFactor");
-            double tK = Get(e, "effectiveTemperatureK");
-            if (l > 0 && t > 0 && c > 0)
+            CoreArrheniusPoint point = ModelJson.Deserialize<CoreArrheniusPoint>(r.ParamsJson);
+            if (point.CaptureRadiusNm > 0 && point.GrowthDurationS > 0 && point.ConventionFactor > 0)
             {
-                points.Add(new ArrheniusPoint(tK, l * l / (c * t)));
+                points.Add(new ArrheniusPoint(point.EffectiveTemperatureK, ArrheniusCalibration.DiffusivityCmSqPerS(point)));
             }
         }
         IReadOnlyList<ModelPoint> wires = await RadiusDataAsync(process, cancellationToken).ConfigureAwait(false);
@@ -95,7 +91,8 @@ public sealed partial class StoreWaferData
         if (arrhenius is not null)
         {
             CoreArrheniusFit fit = ModelJson.Deserialize<CoreArrheniusFit>(arrhenius.ParamsJson);
-            (d0, ea) = (fit.Prefactor.Value, fit.ActivationEnergy.Value);
+            ArrheniusDiffusivity accepted = fit.ToDiffusivity();
+            (d0, ea) = (accepted.D0CmSqPerS, accepted.EaEv);
             c = await ConventionFactorAsync(process, fit.WaferIds, cancellationToken).ConfigureAwait(false) ?? c;
         }
         return new PlannerModel(process, form, a, b, radius?.AcceptedBy, radius?.AcceptedAt, d0, ea, c, arrhenius?.AcceptedBy, arrhenius?.AcceptedAt);
@@ -147,18 +144,12 @@ public sealed partial class StoreWaferData
                 {
                     continue;
                 }
-                using var doc = JsonDocument.Parse(json);
-                if (!doc.RootElement.TryGetProperty("wires", out JsonElement list) || list.ValueKind != JsonValueKind.Array)
+                foreach (FieldWire w in FieldResultJson.Read(json).Wires)
                 {
-                    continue;
-                }
-                foreach (JsonElement w in list.EnumerateArray())
-                {
-                    double a = Get(w, "zoneNormalised");
-                    double r = Get(w, "radiusNm");
-                    if (points.Count < MaxRadiusPoints && Flag(w, "vertical") && Flag(w, "interior") && a > 0 && double.IsFinite(r))
+                    double a = w.ZoneNormalised ?? double.NaN;
+                    if (points.Count < MaxRadiusPoints && WaferEvaluator.Counts(w) && a > 0 && double.IsFinite(w.RadiusNm))
                     {
-                        points.Add(new ModelPoint(a, r, wafer.Name));
+                        points.Add(new ModelPoint(a, w.RadiusNm, wafer.Name));
                     }
                 }
             }
@@ -166,7 +157,6 @@ public sealed partial class StoreWaferData
         return points;
     }
 
-    private static bool Flag(JsonElement e, string name) => e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.True;
 
     /// <summary>The newest accepted fit and the newest proposal made after it (fits are newest first).</summary>
     private static (ModelFitRecord? Accepted, ModelFitRecord? Proposed) AcceptedAndProposed(IReadOnlyList<ModelFitRecord> fits)
@@ -185,25 +175,14 @@ public sealed partial class StoreWaferData
 
     private static RadiusFit ToRadiusFit(ModelFitRecord r)
     {
-        using var doc = JsonDocument.Parse(r.ParamsJson);
-        JsonElement e = doc.RootElement;
-        var form = e.TryGetProperty("kind", out JsonElement k) && k.GetString() == "PowerLaw" ? RadiusModelForm.PowerLaw : RadiusModelForm.Linear;
-        double a = double.NaN;
-        double b = double.NaN;
-        if (e.TryGetProperty("parameters", out JsonElement ps) && ps.ValueKind == JsonValueKind.Array && ps.GetArrayLength() >= 2)
-        {
-            a = Get(ps[0], "value");
-            b = Get(ps[1], "value");
-        }
-        return new RadiusFit(form, a, b, r.RSquared ?? double.NaN, r.RmseNm ?? double.NaN, (int)Get(e, "count"), r.FittedAt);
+        RadiusModelFit fit = ModelJson.Deserialize<RadiusModelFit>(r.ParamsJson);
+        var form = fit.Kind == RadiusModelKind.PowerLaw ? RadiusModelForm.PowerLaw : RadiusModelForm.Linear;
+        return new RadiusFit(form, fit.Parameters[0].Value, fit.Parameters[1].Value, r.RSquared ?? double.NaN, r.RmseNm ?? double.NaN, fit.Count, r.FittedAt);
     }
 
     private static ArrheniusFit ToArrhenius(ModelFitRecord r)
     {
-        using var doc = JsonDocument.Parse(r.ParamsJson);
-        JsonElement e = doc.RootElement;
-        double ea = e.TryGetProperty("activationEnergy", out JsonElement ae) ? Get(ae, "value") : double.NaN;
-        double d0 = e.TryGetProperty("prefactor", out JsonElement pf) ? Get(pf, "value") : double.NaN;
-        return new ArrheniusFit(d0, ea, r.RSquared ?? double.NaN);
+        CoreArrheniusFit fit = ModelJson.Deserialize<CoreArrheniusFit>(r.ParamsJson);
+        return new ArrheniusFit(fit.Prefactor.Value, fit.ActivationEnergy.Value, r.RSquared ?? double.NaN);
     }
 }

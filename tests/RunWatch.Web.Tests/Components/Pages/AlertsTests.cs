@@ -1,7 +1,7 @@
 using Bunit;
 using RunWatch.Web.Components.Pages;
 using RunWatch.Web.Data;
-using RunWatch.Web.Data.InMemory;
+using RunWatch.Testing.Dashboard;
 using RunWatch.Web.Tests.Support;
 using Xunit;
 

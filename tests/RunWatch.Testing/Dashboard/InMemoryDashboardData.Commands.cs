@@ -1,6 +1,8 @@
 using System.Globalization;
+using RunWatch.Core.Model;
+using RunWatch.Web.Data;
 
-namespace RunWatch.Web.Data.InMemory;
+namespace RunWatch.Testing.Dashboard;
 
 public sealed partial class InMemoryDashboardData
 {
@@ -69,7 +71,7 @@ public sealed partial class InMemoryDashboardData
         lock (_gate)
         {
             var model = _models.GetValueOrDefault(process) ?? throw new KeyNotFoundException($"No process '{process}'.");
-            var fit = RadiusLeastSquares.Fit(model.Current.Form, model.RadiusData, time.GetUtcNow());
+            var fit = Refit(model.Current.Form, model.RadiusData, time.GetUtcNow());
             _models[process] = model with { Candidate = fit };
             Audit(user, "model refit", process, string.Create(CultureInfo.InvariantCulture, $"{fit.Form}: A={fit.A:G4}, B={fit.B:G4}, r²={fit.RSquared:F3}, n={fit.Points}"));
         }
@@ -117,5 +119,18 @@ public sealed partial class InMemoryDashboardData
             _audit.Add(entry);
         }
         return Task.CompletedTask;
+    }
+
+    /// <summary>The refit by Core's radius model fitter (least squares), as the store-backed source refits.</summary>
+    private static RadiusFit Refit(RadiusModelForm form, IReadOnlyList<ModelPoint> data, DateTimeOffset at)
+    {
+        if (data.Count < 3)
+        {
+            throw new InvalidOperationException($"A refit needs at least 3 wires; the process has {data.Count}.");
+        }
+        double[] areas = [.. data.Select(p => p.NormalisedCaptureArea)];
+        double[] radii = [.. data.Select(p => p.RadiusNm)];
+        RadiusModelFit fit = RadiusModelFitter.Fit(form == RadiusModelForm.PowerLaw ? RadiusModelKind.PowerLaw : RadiusModelKind.Linear, areas, radii);
+        return new RadiusFit(form, fit.Parameters[0].Value, fit.Parameters[1].Value, fit.RSquared, fit.RmseNm, fit.Count, at);
     }
 }

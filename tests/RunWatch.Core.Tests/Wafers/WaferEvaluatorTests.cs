@@ -2,10 +2,10 @@ using RunWatch.Core.Geometry;
 using RunWatch.Core.Model;
 using RunWatch.Core.PointPatterns;
 using RunWatch.Core.Qc;
-using RunWatch.Wafers.Pipeline;
+using RunWatch.Core.Wafers;
 using Xunit;
 
-namespace RunWatch.Wafers.Tests.Pipeline;
+namespace RunWatch.Core.Tests.Wafers;
 
 public sealed class WaferEvaluatorTests
 {

@@ -1,4 +1,4 @@
-namespace RunWatch.Wafers.Pipeline;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>
 /// What the wafer pipeline keeps of one field's analysis (stored as the analysis's results JSON): enough to

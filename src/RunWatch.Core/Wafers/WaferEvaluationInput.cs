@@ -1,7 +1,7 @@
 using RunWatch.Core.Model;
 using RunWatch.Core.Qc;
 
-namespace RunWatch.Wafers.Pipeline;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>Everything the wafer evaluation judges, gathered from the store.</summary>
 public sealed record WaferEvaluationInput

@@ -1,4 +1,6 @@
-namespace RunWatch.Web.Data.InMemory;
+using RunWatch.Web.Data;
+
+namespace RunWatch.Testing.Dashboard;
 
 public sealed partial class InMemoryDashboardData
 {

@@ -1,4 +1,6 @@
-namespace RunWatch.Web.Data.InMemory;
+using RunWatch.Web.Data;
+
+namespace RunWatch.Testing.Dashboard;
 
 /// <summary>Growable parallel arrays of one channel's samples, ascending by time. Not thread-safe (the owner locks).</summary>
 internal sealed class SampleBuffer

@@ -1,4 +1,4 @@
-namespace RunWatch.Reports.Model;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>One measured wire.</summary>
 /// <param name="FieldName">Field the wire was measured in.</param>

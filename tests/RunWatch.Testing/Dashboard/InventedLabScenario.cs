@@ -1,7 +1,8 @@
 using System.Globalization;
 using System.Text;
+using RunWatch.Web.Data;
 
-namespace RunWatch.Web.Data.InMemory;
+namespace RunWatch.Testing.Dashboard;
 
 /// <summary>
 /// An invented lab for tests, screenshots and benchmarks: two chambers, runs, one wafer with fields, alerts and a
@@ -9,6 +10,9 @@ namespace RunWatch.Web.Data.InMemory;
 /// </summary>
 public static class InventedLabScenario
 {
+    // The invented process's diffusivity (Core's Arrhenius law): D0 = 2.5e-5 cm²/s, Ea = 1.3 eV, the planner's defaults.
+    private static readonly RunWatch.Core.Thermal.ArrheniusDiffusivity Scenario = new(2.5e-5, 1.3);
+
     public const string GrowingChamber = "north-1";
     public const string IdleChamber = "south-2";
     public const string ActiveRun = "R-2031";
@@ -119,7 +123,8 @@ public static class InventedLabScenario
         data.AddProcessModel(new ProcessModelView(Process,
             new RadiusFit(RadiusModelForm.Linear, 20.4, 21.6, 0.81, 2.1, 240, now.AddDays(-7)), null,
             new ArrheniusFit(2.5e-5, 1.3, 0.97), points,
-            [.. new[] { 560.0, 580, 600, 620, 640 }.Select(c => new ArrheniusPoint(c + 273.15, 2.5e-5 * Math.Exp(-1.3 / (8.617333262e-5 * (c + 273.15))) * (0.9 + (random.NextDouble() * 0.2))))],
+            [.. new[] { 560.0, 580, 600, 620, 640 }.Select(c => new ArrheniusPoint(RunWatch.Core.Thermal.PhysicalConstants.CelsiusToKelvin(c),
+                Scenario.DiffusivityCmSqPerS(RunWatch.Core.Thermal.PhysicalConstants.CelsiusToKelvin(c)) * (0.9 + (random.NextDouble() * 0.2))))],
             "demo-admin", now.AddDays(-7)));
     }
 

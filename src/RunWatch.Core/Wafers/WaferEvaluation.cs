@@ -1,9 +1,8 @@
 using RunWatch.Core.Model;
 using RunWatch.Core.Model.Prediction;
 using RunWatch.Core.Qc;
-using RunWatch.Reports.Model;
 
-namespace RunWatch.Wafers.Pipeline;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>The wafer's figures: its wires, statistics, model, predictions and verdict.</summary>
 public sealed record WaferEvaluation

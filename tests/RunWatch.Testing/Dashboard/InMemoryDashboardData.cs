@@ -1,4 +1,6 @@
-namespace RunWatch.Web.Data.InMemory;
+using RunWatch.Web.Data;
+
+namespace RunWatch.Testing.Dashboard;
 
 /// <summary>
 /// A complete in-memory data source for the dashboard: used by the tests, the browser tests and the benchmark,

@@ -1,4 +1,4 @@
-namespace RunWatch.Wafers.Pipeline;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>What the wafer verdict needs of its run's thermal record.</summary>
 /// <param name="LEffNm">Effective diffusion length, nm.</param>

@@ -1,4 +1,4 @@
-namespace RunWatch.Wafers.Pipeline;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>One wire of a field as the wafer pipeline keeps it (lengths in nm, image coordinates, y down).</summary>
 /// <param name="Id">Label in the field.</param>

@@ -2,19 +2,18 @@ using RunWatch.Core.Geometry;
 using RunWatch.Core.Model;
 using RunWatch.Core.Model.Prediction;
 using RunWatch.Core.Qc;
-using RunWatch.Reports.Model;
 
-namespace RunWatch.Wafers.Pipeline;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>
 /// Pure evaluation of one wafer from its analysed fields: pools the wires, applies (or, lacking one, fits) the
 /// process's radius model, finds the best-fit capture radius, predicts the radius distribution from L_eff and the
 /// measured density, compares predicted with measured per wire, and judges the result against the recipe's spec.
 /// </summary>
-internal static class WaferEvaluator
+public static class WaferEvaluator
 {
     /// <summary>Wires that enter the statistics and the model: vertical, clear of the image edge and band, with a radius (a bare droplet without a contact angle has none).</summary>
-    internal static bool Counts(FieldWire w) => w.Vertical && w.Interior && double.IsFinite(w.RadiusNm);
+    public static bool Counts(FieldWire w) => w.Vertical && w.Interior && double.IsFinite(w.RadiusNm);
 
     public static WaferEvaluation Evaluate(WaferEvaluationInput input)
     {

@@ -1,4 +1,4 @@
-namespace RunWatch.Reports.Model;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>Summary statistics of a wafer's wires.</summary>
 /// <param name="Count">Wires measured.</param>
