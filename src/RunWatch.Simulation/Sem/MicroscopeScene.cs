@@ -125,11 +125,17 @@ public static class MicroscopeScene
         return [new MicroscopeObject { Kind = SemObjectKind.Vertical, X = 0, Y = 0, Size = a, AngleDeg = angle, DropletRadius = droplet }];
     }
 
-    /// <summary>An irregular star-shaped polygon: 3–9 corners, jittered radii, stretched along a random axis; size and brightness unlike a wire's on average, not always.</summary>
-    private static MicroscopeObject Crystallite(Random random, MicroscopeSceneOptions o)
+    private static MicroscopeObject Crystallite(Random random, MicroscopeSceneOptions o) => RandomCrystallite(random, (o.MinRadiusPx + o.MaxRadiusPx) / 2);
+
+    /// <summary>
+    /// An irregular star-shaped polygon centred on (0, 0): 3–9 corners, jittered radii, stretched along a random axis,
+    /// 0.35–2.25 × <paramref name="wireRadiusPx"/> in size and 0.55–1.35 × a top's brightness: unlike a wire's on average, not always.
+    /// </summary>
+    public static MicroscopeObject RandomCrystallite(Random random, double wireRadiusPx)
     {
+        ArgumentNullException.ThrowIfNull(random);
         int n = 3 + random.Next(7);
-        double mean = ((o.MinRadiusPx + o.MaxRadiusPx) / 2) * (0.35 + (1.9 * random.NextDouble()));
+        double mean = wireRadiusPx * (0.35 + (1.9 * random.NextDouble()));
         double stretch = 1 + (1.2 * random.NextDouble());
         double axis = random.NextDouble() * Math.PI;
         double start = random.NextDouble() * 2 * Math.PI;
