@@ -10,11 +10,17 @@ public static partial class FieldAnalyzer
     {
         var result = new EdgeProfile[raw.Count];
         double[] profiles = alignedProfiles = new double[raw.Count * EdgeRefiner.Bins];
-        Parallel.For(0, raw.Count, () => new EdgeRefiner(), (i, _, refiner) =>
+        // Contiguous chunks, one refiner (and its buffers) per chunk.
+        int chunks = Math.Max(1, Math.Min(raw.Count, Environment.ProcessorCount * 4));
+        Parallel.For(0, chunks, chunk =>
         {
-            result[i] = refiner.Measure(image, labels, width, 0, validHeight, raw[i], cosTilt, profiles.AsSpan(i * EdgeRefiner.Bins, EdgeRefiner.Bins));
-            return refiner;
-        }, _ => { });
+            var refiner = new EdgeRefiner();
+            int from = (int)((long)raw.Count * chunk / chunks), to = (int)((long)raw.Count * (chunk + 1) / chunks);
+            for (int i = from; i < to; i++)
+            {
+                result[i] = refiner.Measure(image, labels, width, 0, validHeight, raw[i], cosTilt, profiles.AsSpan(i * EdgeRefiner.Bins, EdgeRefiner.Bins));
+            }
+        });
         return result;
     }
 

@@ -137,10 +137,33 @@ internal sealed class EdgeRefiner
         return result;
     }
 
-    private void Sample(ushort[] image, int[] labels, int width, int rowStart, int rowEnd, in RawWire wire, double cosTilt, int stride)
+    private ushort[] _patchImage = [];
+    private int[] _patchLabels = [];
+
+    private void Sample(ushort[] fullImage, int[] fullLabels, int fullWidth, int fullRowStart, int fullRowEnd, in RawWire wire, double cosTilt, int stride)
     {
+        // Copy the object's neighbourhood once (row by row): rays then read a small cache-resident patch instead of
+        // striding through the whole image's rows.
+        double reach = (stride + 1) * Step;
+        int px0 = Math.Max(0, (int)Math.Floor(wire.CentroidX - reach) - 1), px1 = Math.Min(fullWidth - 1, (int)Math.Ceiling(wire.CentroidX + reach) + 1);
+        int py0 = Math.Max(fullRowStart, (int)Math.Floor(wire.CentroidY - reach) - 1), py1 = Math.Min(fullRowEnd - 1, (int)Math.Ceiling(wire.CentroidY + reach) + 1);
+        int width = px1 - px0 + 1, rows = py1 - py0 + 1;
+        if (_patchImage.Length < width * rows)
+        {
+            _patchImage = new ushort[width * rows * 2];
+            _patchLabels = new int[width * rows * 2];
+        }
+        for (int y = 0; y < rows; y++)
+        {
+            Array.Copy(fullImage, ((py0 + y) * fullWidth) + px0, _patchImage, y * width, width);
+            Array.Copy(fullLabels, ((py0 + y) * fullWidth) + px0, _patchLabels, y * width, width);
+        }
+        ushort[] image = _patchImage;
+        int[] labels = _patchLabels;
+        // Patch coordinates; the patch's rows stand for [py0, py1] and its edges are the image's or beyond every ray's reach.
+        int rowStart = 0, rowEnd = rows;
         int label = wire.Label;
-        double cx = wire.CentroidX, cy = wire.CentroidY;
+        double cx = wire.CentroidX - px0, cy = wire.CentroidY - py0;
         int outside = (int)(OutsideReach / Step);
         for (int k = 0; k < Rays; k++)
         {
@@ -344,9 +367,9 @@ internal sealed class EdgeRefiner
                 {
                     if (!double.IsNaN(_edge[k]))
                     {
-                        double angle = 2 * Math.PI * m * k / Rays;
-                        re += (_edge[k] - mean) * Math.Cos(angle);
-                        im -= (_edge[k] - mean) * Math.Sin(angle);
+                        int phase = (m * k) % Rays;
+                        re += (_edge[k] - mean) * Cos[phase];
+                        im -= (_edge[k] - mean) * Sin[phase];
                     }
                 }
                 double power = ((re * re) + (im * im)) / ((double)n * n);
@@ -447,10 +470,61 @@ internal sealed class EdgeRefiner
         return n >= Rays / 2 ? Math.Sqrt(sum2 / n) : 0;
     }
 
+    /// <summary>Median by selection (Hoare's quickselect, expected linear time; reorders <paramref name="values"/>).</summary>
     private static double Median(Span<double> values)
     {
-        values.Sort();
         int n = values.Length;
-        return n % 2 == 1 ? values[n / 2] : 0.5 * (values[(n / 2) - 1] + values[n / 2]);
+        double upper = Select(values, n / 2);
+        if (n % 2 == 1)
+        {
+            return upper;
+        }
+        // After selecting n/2, the lower half holds the smaller values: the other middle value is its maximum.
+        double lower = double.NegativeInfinity;
+        for (int i = 0; i < n / 2; i++)
+        {
+            lower = Math.Max(lower, values[i]);
+        }
+        return 0.5 * (lower + upper);
+    }
+
+    private static double Select(Span<double> a, int k)
+    {
+        int lo = 0, hi = a.Length - 1;
+        while (lo < hi)
+        {
+            double pivot = a[lo + ((hi - lo) / 2)];
+            int i = lo, j = hi;
+            while (i <= j)
+            {
+                while (a[i] < pivot)
+                {
+                    i++;
+                }
+                while (a[j] > pivot)
+                {
+                    j--;
+                }
+                if (i <= j)
+                {
+                    (a[i], a[j]) = (a[j], a[i]);
+                    i++;
+                    j--;
+                }
+            }
+            if (k <= j)
+            {
+                hi = j;
+            }
+            else if (k >= i)
+            {
+                lo = i;
+            }
+            else
+            {
+                return a[k];
+            }
+        }
+        return a[k];
     }
 }
