@@ -68,6 +68,12 @@ internal static partial class Log
     [LoggerMessage(EventId = 2401, Level = LogLevel.Error, Message = "Alert sink {Sink} failed for alert {AlertId}")]
     public static partial void AlertSinkFailed(ILogger logger, string sink, long alertId, Exception exception);
 
+    [LoggerMessage(EventId = 2405, Level = LogLevel.Error, Message = "Could not write alert {Kind} to the alert journal {Path}; it is published, and stored once the store can be written")]
+    public static partial void AlertJournalFailed(ILogger logger, string kind, string path);
+
+    [LoggerMessage(EventId = 2406, Level = LogLevel.Warning, Message = "Found {Count} alert change(s) journalled but not stored at the last stop; storing them now")]
+    public static partial void AlertJournalReplayed(ILogger logger, int count);
+
     [LoggerMessage(EventId = 2402, Level = LogLevel.Error, Message = "Could not store alert {Kind} on {Chamber}; will retry")]
     public static partial void AlertStoreFailed(ILogger logger, string kind, string chamber, Exception exception);
 

@@ -48,4 +48,24 @@ public sealed class DashboardOptions
     /// <summary>Longest shelving an engineer may choose.</summary>
     /// <value>24 hours.</value>
     public TimeSpan MaxShelveDuration { get; set; } = TimeSpan.FromHours(24);
+
+    /// <summary>
+    /// Origins (<c>scheme://host[:port]</c>) besides the dashboard's own from which a browser may send state-changing
+    /// requests, e.g. the public name a reverse proxy serves it under when the proxy rewrites the Host header.
+    /// </summary>
+    public List<string> AllowedOrigins { get; set; } = [];
+
+    /// <summary>Login attempts one client address may make per <see cref="LoginWindow"/>; more get 429.</summary>
+    /// <value>20.</value>
+    [Range(1, 10_000)]
+    public int LoginAttemptsPerAddress { get; set; } = 20;
+
+    /// <summary>Login attempts for one user name (whatever the address) per <see cref="LoginWindow"/>; more get 429.</summary>
+    /// <value>5.</value>
+    [Range(1, 10_000)]
+    public int LoginAttemptsPerUser { get; set; } = 5;
+
+    /// <summary>The window the login limits count in.</summary>
+    /// <value>1 minute.</value>
+    public TimeSpan LoginWindow { get; set; } = TimeSpan.FromMinutes(1);
 }

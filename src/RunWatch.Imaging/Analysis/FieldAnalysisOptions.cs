@@ -1,3 +1,4 @@
+using RunWatch.Imaging.Scale;
 using RunWatch.Imaging.Decoding;
 using RunWatch.Imaging.Measurement;
 
@@ -72,17 +73,17 @@ public sealed class FieldAnalysisOptions
 
     public void Validate()
     {
-        if (PixelSizeNm is { } p && !(p > 0 && double.IsFinite(p)))
+        if (PixelSizeNm is { } p && FieldValueBounds.Check(nameof(PixelSizeNm), p, FieldValueBounds.MinPixelSizeNm, FieldValueBounds.MaxPixelSizeNm, "nm") is { } pixelProblem)
         {
-            throw new ArgumentOutOfRangeException(nameof(PixelSizeNm), p, "must be a positive number of nm");
+            throw new ArgumentOutOfRangeException(nameof(PixelSizeNm), p, pixelProblem);
         }
-        if (DiffusionLengthNm is { } l && !(l > 0 && double.IsFinite(l)))
+        if (DiffusionLengthNm is { } l && FieldValueBounds.Check(nameof(DiffusionLengthNm), l, FieldValueBounds.MinDiffusionLengthNm, FieldValueBounds.MaxDiffusionLengthNm, "nm") is { } lengthProblem)
         {
-            throw new ArgumentOutOfRangeException(nameof(DiffusionLengthNm), l, "must be a positive number of nm");
+            throw new ArgumentOutOfRangeException(nameof(DiffusionLengthNm), l, lengthProblem);
         }
-        if (DiffusionLengthPixels is { } lp && !(lp > 0 && double.IsFinite(lp)))
+        if (DiffusionLengthPixels is { } lp && FieldValueBounds.Check(nameof(DiffusionLengthPixels), lp, 0.01, 1e5, "pixels") is { } pixelsProblem)
         {
-            throw new ArgumentOutOfRangeException(nameof(DiffusionLengthPixels), lp, "must be a positive number of pixels");
+            throw new ArgumentOutOfRangeException(nameof(DiffusionLengthPixels), lp, pixelsProblem);
         }
         if (BackgroundWindowPixels < 0 || DenoiseRadius < 0 || DenoiseRadius > 10)
         {

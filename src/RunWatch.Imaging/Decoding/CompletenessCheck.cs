@@ -4,7 +4,8 @@ namespace RunWatch.Imaging.Decoding;
 
 /// <summary>
 /// Detects files cut short: the decoders fill what is missing with zeros rather than fail. PNG: the chunk chain
-/// must reach IEND inside the file (ISO/IEC 15948 §5.3); JPEG: an EOI marker (FFD9) must close the data
+/// must reach IEND inside the file (ISO/IEC 15948 §5.3) and the image data must inflate to every scanline
+/// (<see cref="PngImageData"/>); JPEG: an EOI marker (FFD9) must close the data
 /// (ITU-T T.81 B.2.1, trailing bytes tolerated); BMP: the pixel array must fit (bfOffBits + stride × height);
 /// TIFF: see <see cref="TiffExtentCheck"/>.
 /// </summary>
@@ -24,6 +25,7 @@ internal static class CompletenessCheck
         long length = stream.Length;
         long at = 8;
         Span<byte> header = stackalloc byte[8];
+        var idat = new List<(long Offset, long Size)>();
         while (at + 12 <= length)
         {
             stream.Position = at;
@@ -32,11 +34,15 @@ internal static class CompletenessCheck
             long next = at + 12 + size;
             if (header[4..].SequenceEqual("IEND"u8))
             {
-                return next <= length ? null : "the file ends inside the final PNG chunk (truncated)";
+                return next <= length ? PngImageData.FindProblem(stream, idat) : "the file ends inside the final PNG chunk (truncated)";
             }
             if (next > length)
             {
                 return $"a PNG chunk runs past the end of the file at byte {length:N0} (truncated)";
+            }
+            if (header[4..].SequenceEqual("IDAT"u8))
+            {
+                idat.Add((at + 8, size));
             }
             at = next;
         }

@@ -95,6 +95,11 @@ public static class GrayImageDecoder
             {
                 problem = "the file ends early (truncated)";
             }
+            catch (Exception ex) when (ex is InvalidDataException or ArgumentException or IOException or OverflowException)
+            {
+                // Structure the completeness check cannot follow: damaged, whatever the decoder would make of it.
+                problem = "the file's structure is damaged: " + ex.Message;
+            }
             if (problem is not null)
             {
                 throw new ImageDecodeException(name, ImageDecodeFailure.Corrupt, problem);

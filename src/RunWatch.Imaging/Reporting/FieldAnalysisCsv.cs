@@ -16,7 +16,7 @@ public static class FieldAnalysisCsv
         ArgumentNullException.ThrowIfNull(writer);
         ArgumentNullException.ThrowIfNull(analysis);
         var sb = new StringBuilder(256);
-        string field = Quote(analysis.Source);
+        string field = Core.Text.CsvCell.Text(analysis.Source);
         foreach (WireMeasurement w in analysis.Wires)
         {
             sb.Clear();
@@ -39,7 +39,4 @@ public static class FieldAnalysisCsv
             writer.WriteLine(sb.ToString());
         }
     }
-
-    private static string Quote(string s) =>
-        s.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + s.Replace("\"", "\"\"", StringComparison.Ordinal) + "\"" : s;
 }

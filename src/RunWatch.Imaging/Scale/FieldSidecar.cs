@@ -49,11 +49,12 @@ public sealed record FieldSidecar
     public static FieldSidecar? TryLoadFor(string imagePath)
     {
         string path = PathFor(imagePath);
-        if (!File.Exists(path))
+        var info = new FileInfo(path);
+        if (!info.Exists && info.LinkTarget is null)
         {
             return null;
         }
-        string text = File.ReadAllText(path);
+        string text = ReadBounded(info);
         FieldSidecar? sidecar;
         try
         {
@@ -71,6 +72,51 @@ public sealed record FieldSidecar
         return sidecar;
     }
 
+    /// <summary>Largest sidecar read, bytes; a real one is a few hundred.</summary>
+    public const int MaxBytes = 64 * 1024;
+
+    /// <summary>
+    /// Reads a sidecar that is a regular file of at most <see cref="MaxBytes"/>: a symbolic link (it could name
+    /// /dev/zero or a file outside the drop folder), an empty file or anything that is not a regular file (a FIFO or
+    /// a device reports length 0 and would block or never end) is refused before it is opened, and never more than
+    /// <see cref="MaxBytes"/> + 1 bytes are read.
+    /// </summary>
+    private static string ReadBounded(FileInfo info)
+    {
+        if (info.LinkTarget is not null)
+        {
+            throw new FieldSidecarException(info.FullName, "is a symbolic link; put the sidecar file itself beside the image");
+        }
+        if (info.Length == 0)
+        {
+            throw new FieldSidecarException(info.FullName, "is empty or not a regular file");
+        }
+        if (info.Length > MaxBytes)
+        {
+            throw new FieldSidecarException(info.FullName, $"is larger than {MaxBytes} bytes");
+        }
+        using var stream = new FileStream(info.FullName, FileMode.Open, FileAccess.Read, FileShare.Read, 4096, FileOptions.None);
+        byte[] buffer = new byte[MaxBytes + 1];
+        int total = 0;
+        int read;
+        while (total < buffer.Length && (read = stream.Read(buffer, total, buffer.Length - total)) > 0)
+        {
+            total += read;
+        }
+        if (total > MaxBytes)
+        {
+            throw new FieldSidecarException(info.FullName, $"is larger than {MaxBytes} bytes");
+        }
+        try
+        {
+            return new System.Text.UTF8Encoding(false, throwOnInvalidBytes: true).GetString(buffer, 0, total);
+        }
+        catch (System.Text.DecoderFallbackException)
+        {
+            throw new FieldSidecarException(info.FullName, "is not valid UTF-8 text");
+        }
+    }
+
     /// <summary>Writes this sidecar beside <paramref name="imagePath"/>.</summary>
     public void WriteFor(string imagePath) => File.WriteAllText(PathFor(imagePath), JsonSerializer.Serialize(this, Json));
 
@@ -80,9 +126,23 @@ public sealed record FieldSidecar
         {
             throw new FieldSidecarException(path, $"format is '{Format}', expected '{CurrentFormat}'");
         }
-        if (PixelSizeNm is { } p && !(p > 0 && double.IsFinite(p)))
+        if (PixelSizeNm is { } p && FieldValueBounds.Check("pixelSizeNm", p, FieldValueBounds.MinPixelSizeNm, FieldValueBounds.MaxPixelSizeNm, "nm") is { } pixelProblem)
         {
-            throw new FieldSidecarException(path, $"pixelSizeNm must be a positive number, got {p}");
+            throw new FieldSidecarException(path, pixelProblem);
+        }
+        if (FieldPosition is { } at
+            && (FieldValueBounds.Check("fieldPosition.xMm", at.XMm, -FieldValueBounds.MaxPositionMm, FieldValueBounds.MaxPositionMm, "mm")
+                ?? FieldValueBounds.Check("fieldPosition.yMm", at.YMm, -FieldValueBounds.MaxPositionMm, FieldValueBounds.MaxPositionMm, "mm")) is { } positionProblem)
+        {
+            throw new FieldSidecarException(path, positionProblem);
+        }
+        if (ExcludedBottomRows is > FieldValueBounds.MaxExcludedRows)
+        {
+            throw new FieldSidecarException(path, "excludedBottomRows must be at most " + FieldValueBounds.MaxExcludedRows.ToString(System.Globalization.CultureInfo.InvariantCulture));
+        }
+        if (WaferId is { Length: > 64 })
+        {
+            throw new FieldSidecarException(path, "waferId must be at most 64 characters");
         }
         if (TiltDeg is { } t && !(Math.Abs(t) < 90))
         {

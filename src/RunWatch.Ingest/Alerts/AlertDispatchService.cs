@@ -22,13 +22,16 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
     private readonly ILogger _logger;
     private readonly AlertBook _book = new();
     private readonly Lock _bookGate = new();
+    private readonly SemaphoreSlim _saveGate = new(1, 1);
     private readonly Dictionary<string, AlertRecord> _unsaved = new(StringComparer.Ordinal);
     private readonly Dictionary<string, string> _pendingUser = new(StringComparer.Ordinal);
     private readonly Dictionary<string, DateTimeOffset> _lookForRun = new(StringComparer.Ordinal);
+    private readonly AlertJournal _journal;
 
     public AlertDispatchService(AlertEngine engine, IRunWatchStore store, IEnumerable<IAlertSink> sinks, IOptions<AlertsOptions> options,
-        IngestMetrics metrics, TimeProvider timeProvider, ILogger<AlertDispatchService> logger)
+        IOptions<StorageOptions> storage, IngestMetrics metrics, TimeProvider timeProvider, ILogger<AlertDispatchService> logger)
     {
+        _journal = new AlertJournal(Path.Combine(Path.GetFullPath(storage.Value.DataDirectory), AlertJournal.FileName));
         _engine = engine;
         _store = store;
         var o = options.Value;
@@ -55,6 +58,23 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
             await _store.AppendAuditAsync(new AuditEntry(_timeProvider.GetUtcNow(), user, "alert-acknowledged", alertId.ToString(System.Globalization.CultureInfo.InvariantCulture), null), cancellationToken).ConfigureAwait(false);
         }
         return changed;
+    }
+
+    /// <summary>
+    /// Replaces the book's alerts of one chamber with the store's (fleet mode, at a takeover: the previous owner may
+    /// have raised, acknowledged or cleared them since this daemon last looked). Returns how many are active.
+    /// </summary>
+    public async Task<int> ReloadChamberAsync(string chamber, DateTimeOffset replayFrom, CancellationToken cancellationToken)
+    {
+        var active = (await _store.GetActiveAlertsAsync(cancellationToken).ConfigureAwait(false)).Where(a => a.Chamber == chamber).ToList();
+        var recent = (await _store.GetAlertHistoryAsync(replayFrom.AddDays(-1), DateTimeOffset.MaxValue, 10_000, cancellationToken).ConfigureAwait(false))
+            .Where(a => a.Chamber == chamber).ToList();
+        lock (_bookGate)
+        {
+            _book.Replace(chamber, active, recent.Concat(active));
+        }
+        _metrics.AlertsActive.Set(ActiveCount());
+        return active.Count;
     }
 
     public async Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, CancellationToken cancellationToken)
@@ -87,6 +107,7 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
         {
             // Start with an empty book; alerts raised now are saved once the store is back.
         }
+        await ReplayJournalAsync(stoppingToken).ConfigureAwait(false);
         var queues = _sinks.Select(sink => (Sink: sink, Queue: Channel.CreateBounded<AlertNotification>(new BoundedChannelOptions(1000) { FullMode = BoundedChannelFullMode.DropOldest }))).ToArray();
         var workers = queues.Select(q => RunSinkAsync(q.Sink, q.Queue.Reader, stoppingToken)).ToArray();
         var ticks = TickAsync(stoppingToken);
@@ -107,6 +128,11 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
                 if (notification is null)
                 {
                     continue;
+                }
+                // Stored before published: on disk first (survives a kill while the store is down), then in the store.
+                if (!_journal.TryAppend(notification.Alert))
+                {
+                    Log.AlertJournalFailed(_logger, notification.Alert.Kind, _journal.Path);
                 }
                 var saved = await SaveUnsavedAsync(stoppingToken).ConfigureAwait(false);
                 if (saved.TryGetValue(notification.Alert.Key, out var withId))
@@ -145,7 +171,59 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
         return true;
     }
 
+    /// <summary>
+    /// Alert changes journalled but not stored when the daemon last stopped (killed during a store outage) go back into
+    /// the unsaved set; one already inserted before the kill is matched by key and raise time, so it is not stored twice.
+    /// </summary>
+    private async Task ReplayJournalAsync(CancellationToken cancellationToken)
+    {
+        var pending = _journal.ReadPending();
+        if (pending.Count == 0)
+        {
+            return;
+        }
+        IReadOnlyList<AlertRecord> active = [];
+        try
+        {
+            active = await _store.GetActiveAlertsAsync(cancellationToken).ConfigureAwait(false);
+        }
+        catch (StoreUnavailableException)
+        {
+            // Matched when saved later: a duplicate row is the worse case than none.
+        }
+        lock (_bookGate)
+        {
+            foreach (var alert in pending)
+            {
+                var toSave = alert;
+                if (alert.Id == 0 && active.FirstOrDefault(a => a.Key == alert.Key && a.RaisedAt == alert.RaisedAt) is { } stored)
+                {
+                    toSave = alert with { Id = stored.Id, RunId = alert.RunId ?? stored.RunId };
+                }
+                _unsaved[alert.Key] = toSave;
+                _book.Update(toSave);
+            }
+        }
+        Log.AlertJournalReplayed(_logger, pending.Count);
+        await SaveUnsavedAsync(cancellationToken).ConfigureAwait(false);
+    }
+
     private async Task<Dictionary<string, AlertRecord>> SaveUnsavedAsync(CancellationToken cancellationToken)
+    {
+        // One save pass at a time: the signal loop and the retry tick both call this, and two passes over the same
+        // new record (id 0) would insert it twice.
+        await _saveGate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            return await SaveUnsavedOnceAsync(cancellationToken).ConfigureAwait(false);
+        }
+        finally
+        {
+            _saveGate.Release();
+        }
+    }
+
+    private async Task<Dictionary<string, AlertRecord>> SaveUnsavedOnceAsync(CancellationToken cancellationToken)
     {
         var saved = new Dictionary<string, AlertRecord>(StringComparer.Ordinal);
         KeyValuePair<string, AlertRecord>[] pending;
@@ -193,6 +271,15 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
                 Log.AlertStoreFailed(_logger, alert.Kind, alert.Chamber ?? "daemon", ex);
                 break;
             }
+        }
+        bool allStored;
+        lock (_bookGate)
+        {
+            allStored = _unsaved.Count == 0;
+        }
+        if (allStored)
+        {
+            _journal.Clear();
         }
         return saved;
     }

@@ -77,4 +77,15 @@ public sealed class BrokerOptions
     /// <summary>Embedded broker: most messages queued per client before the oldest are dropped. <value>Default 1 000 000.</value></summary>
     [Range(1, int.MaxValue)]
     public int EmbeddedMaxPendingMessagesPerClient { get; set; } = 1_000_000;
+
+    /// <summary>
+    /// Largest MQTT packet the daemon accepts, bytes, announced to the broker at connect (MQTT 5 Maximum Packet Size):
+    /// the broker does not send this client anything larger (Mosquitto drops such a message for this client only), so
+    /// a 10 MB payload never reaches the daemon's memory. Keep it above <c>Ingest:MaxPayloadBytes</c> so that moderately
+    /// oversize payloads still arrive and are counted as <c>oversize</c>; the broker's own limit (Mosquitto
+    /// <c>message_size_limit</c>, deploy/mosquitto/runwatch.conf) refuses them from publishers. The embedded broker
+    /// drops publishes larger than this for every subscriber. <value>Default 1 MiB + 64 KiB.</value>
+    /// </summary>
+    [Range(1024, 268_435_460)]
+    public int MaximumPacketBytes { get; set; } = (1024 * 1024) + (64 * 1024);
 }

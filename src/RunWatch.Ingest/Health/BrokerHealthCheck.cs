@@ -2,7 +2,10 @@ using Microsoft.Extensions.Diagnostics.HealthChecks;
 
 namespace RunWatch.Ingest.Health;
 
-/// <summary>Healthy while connected to the broker; degraded while (re)connecting.</summary>
+/// <summary>
+/// Healthy while connected to the broker; unhealthy otherwise (connecting, disconnected, refused), so /healthz answers
+/// 503 and a monitor that reads only the status code sees the outage. Telemetry cannot arrive while it lasts.
+/// </summary>
 internal sealed class BrokerHealthCheck(IngestHealth health) : IHealthCheck
 {
     public Task<HealthCheckResult> CheckHealthAsync(HealthCheckContext context, CancellationToken cancellationToken = default)
@@ -15,6 +18,6 @@ internal sealed class BrokerHealthCheck(IngestHealth health) : IHealthCheck
         }
         return Task.FromResult(s.BrokerState == BrokerConnectionState.Connected
             ? HealthCheckResult.Healthy("connected", data)
-            : HealthCheckResult.Degraded(s.BrokerState.ToString().ToLowerInvariant(), data: data));
+            : HealthCheckResult.Unhealthy(s.BrokerState.ToString().ToLowerInvariant(), data: data));
     }
 }

@@ -1,4 +1,3 @@
-using System.Net;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
@@ -9,8 +8,8 @@ using RunWatch.Ingest.Configuration;
 namespace RunWatch.Ingest.Mqtt;
 
 /// <summary>
-/// The embedded MQTTnet broker for a single box and the demo, bound to <see cref="BrokerOptions.Host"/> (loopback by
-/// default). Its sessions and queued messages live in memory only: what is queued for the daemon is lost if the
+/// The embedded MQTTnet broker for a single box and the demo, bound to exactly <see cref="BrokerOptions.Host"/> and
+/// no other address of either family (127.0.0.1 by default; see <see cref="BrokerBindAddresses"/>). Its sessions and queued messages live in memory only: what is queued for the daemon is lost if the
 /// daemon process dies. Checks the configured user name and password when one is set.
 /// </summary>
 internal sealed class EmbeddedBrokerService(IOptions<BrokerOptions> options, ILogger<EmbeddedBrokerService> logger) : IHostedService, IDisposable
@@ -20,9 +19,11 @@ internal sealed class EmbeddedBrokerService(IOptions<BrokerOptions> options, ILo
     public async Task StartAsync(CancellationToken cancellationToken)
     {
         var broker = options.Value;
+        var bind = BrokerBindAddresses.Parse(broker.Host);
         var serverOptions = new MqttServerOptionsBuilder()
             .WithDefaultEndpoint()
-            .WithDefaultEndpointBoundIPAddress(IPAddress.Parse(broker.Host))
+            .WithDefaultEndpointBoundIPAddress(bind.V4)
+            .WithDefaultEndpointBoundIPV6Address(bind.V6)
             .WithDefaultEndpointPort(broker.Port)
             .WithPersistentSessions(true)
             .WithMaxPendingMessagesPerClient(broker.EmbeddedMaxPendingMessagesPerClient)
@@ -40,8 +41,18 @@ internal sealed class EmbeddedBrokerService(IOptions<BrokerOptions> options, ILo
                 return Task.CompletedTask;
             };
         }
+        // MQTTnet's server has no packet size limit of its own: refuse oversize publishes before they are queued for
+        // anyone (the sender's packet has been read once; nothing keeps it).
+        _server.InterceptingPublishAsync += e =>
+        {
+            if (e.ApplicationMessage.Payload.Length > broker.MaximumPacketBytes)
+            {
+                e.ProcessPublish = false;
+            }
+            return Task.CompletedTask;
+        };
         await _server.StartAsync().ConfigureAwait(false);
-        Log.EmbeddedStarted(logger, broker.Host, broker.Port);
+        Log.EmbeddedStarted(logger, bind.ToString(), broker.Port);
     }
 
     public async Task StopAsync(CancellationToken cancellationToken)

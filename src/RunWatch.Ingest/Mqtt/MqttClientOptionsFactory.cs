@@ -25,6 +25,7 @@ internal static class MqttClientOptionsFactory
             .WithCleanSession(false)
             .WithSessionExpiryInterval((uint)Math.Min(uint.MaxValue, broker.SessionExpiry.TotalSeconds))
             .WithReceiveMaximum((ushort)broker.ReceiveMaximum)
+            .WithMaximumPacketSize((uint)broker.MaximumPacketBytes)
             .WithWillTopic(StatusTopic(ingest, broker))
             .WithWillPayload("offline"u8.ToArray())
             .WithWillRetain(true)

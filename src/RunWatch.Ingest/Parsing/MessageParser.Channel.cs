@@ -53,9 +53,18 @@ internal sealed partial class MessageParser
         bool invalid = false;
         bool haveValue = false;
         Utf8JsonReader valueReader = default;
+        bool sawTime = false;
+        bool sawSeq = false;
         while (reader.Read() && reader.TokenType != JsonTokenType.EndObject)
         {
-            if (reader.ValueTextEquals("t"u8))
+            if (IsRepeat(ref reader, ref sawTime, "t"u8) || IsRepeat(ref reader, ref sawSeq, "seq"u8) || IsRepeatOf(ref reader, haveValue, "v"u8))
+            {
+                Reject(RejectReason.DuplicateKey, channel.Name + ": property " + Printable(ref reader) + " appears twice");
+                invalid = true;
+                reader.Read();
+                reader.Skip();
+            }
+            else if (reader.ValueTextEquals("t"u8))
             {
                 reader.Read();
                 invalid |= !TryReadTimestamp(ref reader, receivedAt, out timestampUs);

@@ -18,6 +18,28 @@ internal sealed partial class MessageParser
             Reject(RejectReason.WrongType, "an event must be a JSON object");
             return;
         }
+        try
+        {
+            ParseEventObject(root, payload, chamber, receivedAt, batch, events);
+        }
+        catch (InvalidOperationException)
+        {
+            // GetString on an escaped lone surrogate ("\udc00"): the text is not Unicode.
+            Reject(RejectReason.MalformedUtf8, "an event string is not valid Unicode");
+        }
+    }
+
+    private void ParseEventObject(JsonElement root, ReadOnlySpan<byte> payload, ChamberRuntime chamber, DateTimeOffset receivedAt, IngestBatch batch, List<ChamberEvent> events)
+    {
+        var names = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var property in root.EnumerateObject())
+        {
+            if (!names.Add(property.Name))
+            {
+                Reject(RejectReason.DuplicateKey, "event property " + (property.Name.Length <= 64 ? property.Name : property.Name[..64]) + " appears twice");
+                return;
+            }
+        }
         if (!root.TryGetProperty("t", out var t) || !root.TryGetProperty("type", out var typeElement))
         {
             Reject(RejectReason.MissingField, "an event needs t and type");
@@ -54,6 +76,10 @@ internal sealed partial class MessageParser
         {
             Reject(RejectReason.OutOfRange, "planned_s must not be negative");
             return;
+        }
+        if (type == "run-start" && string.IsNullOrWhiteSpace(run))
+        {
+            Reject(RejectReason.RunStartWithoutId, "run-start without run id; kept under an automatic name");
         }
         string? eventText = type == "step" ? step ?? text : text;
         var parsed = new ChamberEvent(chamber.ChamberId, timestamp, type, run, wafers, recipe, setpoint, planned, eventText);

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
+using System.Text.Unicode;
 using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
 using RunWatch.Storage;
@@ -59,6 +60,10 @@ internal sealed partial class MessageParser
             {
                 Reject(RejectReason.UnknownChamber, "chamber not configured: " + parts.Site.ToString() + "/" + parts.Chamber.ToString());
             }
+            else if (!Utf8.IsValid(payload) && RejectInvalidUtf8(payload) && parts.Kind == TopicKind.Event)
+            {
+                // An event is kept whole or not at all; telemetry keeps the values that can still be read.
+            }
             else
             {
                 switch (parts.Kind)
@@ -87,6 +92,7 @@ internal sealed partial class MessageParser
 
         if (_message.Total > 0)
         {
+            bool lostSomething = false;
             for (int r = 0; r < RejectReasons.Count; r++)
             {
                 var reason = (RejectReason)r;
@@ -94,12 +100,16 @@ internal sealed partial class MessageParser
                 if (count > 0)
                 {
                     tally.Add(reason, _message.FirstDetail(reason), count);
+                    lostSomething |= !RejectReasons.IsNotice(reason);
                 }
             }
-            var firstReason = FirstReason();
-            int kept = Math.Min(payload.Length, _deadLetterPayloadBytes);
-            batch.DeadLetters.Add(new DeadLetter(receivedAt, topic, RejectReasons.Code(firstReason),
-                Summary(), payload[..kept].ToArray(), payloadLength));
+            if (lostSomething)
+            {
+                var firstReason = FirstReason();
+                int kept = Math.Min(payload.Length, _deadLetterPayloadBytes);
+                batch.DeadLetters.Add(new DeadLetter(receivedAt, topic, RejectReasons.Code(firstReason),
+                    Summary(), payload[..kept].ToArray(), payloadLength));
+            }
         }
         return batch.SampleCount - samplesBefore;
     }
@@ -108,7 +118,7 @@ internal sealed partial class MessageParser
     {
         for (int r = 0; r < RejectReasons.Count; r++)
         {
-            if (_message[(RejectReason)r] > 0)
+            if (_message[(RejectReason)r] > 0 && !RejectReasons.IsNotice((RejectReason)r))
             {
                 return (RejectReason)r;
             }
@@ -138,6 +148,41 @@ internal sealed partial class MessageParser
 
     private void Reject(RejectReason reason, string detail) => _message.Add(reason, detail);
 
+    /// <summary>Counts the message as malformed UTF-8 (once) and returns true.</summary>
+    private bool RejectInvalidUtf8(ReadOnlySpan<byte> payload)
+    {
+        int offset = 0;
+        while (offset < payload.Length && Utf8.IsValid(payload[..(offset + 1)]))
+        {
+            offset++;
+        }
+        // A cut multi-byte sequence is valid as a prefix of nothing; the first offset whose prefix fails is the bad byte.
+        Reject(RejectReason.MalformedUtf8, "payload is not valid UTF-8 (near byte " + offset.ToString(CultureInfo.InvariantCulture) + ")");
+        return true;
+    }
+
+    /// <summary>A property name or string for a log line or dead letter: never throws, invalid bytes become U+FFFD, at most 64 characters.</summary>
+    private static string Printable(ref Utf8JsonReader reader)
+    {
+        string text;
+        if (reader.ValueIsEscaped)
+        {
+            try
+            {
+                text = reader.GetString() ?? "";
+            }
+            catch (InvalidOperationException)
+            {
+                text = "(not valid Unicode)";
+            }
+        }
+        else
+        {
+            text = Encoding.UTF8.GetString(reader.ValueSpan);
+        }
+        return text.Length <= 64 ? text : text[..64] + "…";
+    }
+
     private void ParseTelemetry(ReadOnlySpan<byte> payload, ChamberRuntime chamber, DateTimeOffset receivedAt, IngestBatch batch)
     {
         var reader = new Utf8JsonReader(payload, ReaderOptions);
@@ -152,8 +197,10 @@ internal sealed partial class MessageParser
         }
         else if (reader.TokenType == JsonTokenType.StartArray)
         {
+            int items = 0;
             while (reader.Read() && reader.TokenType != JsonTokenType.EndArray)
             {
+                items++;
                 if (reader.TokenType == JsonTokenType.StartObject)
                 {
                     ParseTelemetryObject(ref reader, chamber, receivedAt, batch);
@@ -163,6 +210,10 @@ internal sealed partial class MessageParser
                     Reject(RejectReason.WrongType, "items of a telemetry array must be objects");
                     reader.Skip();
                 }
+            }
+            if (items == 0)
+            {
+                Reject(RejectReason.Empty, "empty telemetry array");
             }
         }
         else
@@ -179,10 +230,19 @@ internal sealed partial class MessageParser
         bool haveTime = false;
         bool invalid = false;
         bool haveValues = false;
+        bool haveSeq = false;
+        bool sawTime = false;
         Utf8JsonReader values = default;
         while (reader.Read() && reader.TokenType != JsonTokenType.EndObject)
         {
-            if (reader.ValueTextEquals("t"u8))
+            if (IsRepeat(ref reader, ref sawTime, "t"u8) || IsRepeat(ref reader, ref haveSeq, "seq"u8) || IsRepeatOf(ref reader, haveValues, "values"u8))
+            {
+                Reject(RejectReason.DuplicateKey, "property " + Printable(ref reader) + " appears twice in one telemetry object");
+                invalid = true;
+                reader.Read();
+                reader.Skip();
+            }
+            else if (reader.ValueTextEquals("t"u8))
             {
                 reader.Read();
                 if (TryReadTimestamp(ref reader, receivedAt, out timestampUs))
@@ -210,8 +270,8 @@ internal sealed partial class MessageParser
                 {
                     // The time may follow the values: remember where they start and read them once the object is complete.
                     values = reader;
-                    haveValues = true;
                 }
+                haveValues = true;
                 reader.Skip();
             }
             else
@@ -234,12 +294,16 @@ internal sealed partial class MessageParser
             Reject(RejectReason.MissingField, "telemetry object without values");
             return;
         }
+        if (!ValuesAreUnambiguous(values, chamber))
+        {
+            return;
+        }
         while (values.Read() && values.TokenType != JsonTokenType.EndObject)
         {
             var channel = chamber.FindChannel(ref values);
             if (channel is null)
             {
-                Reject(RejectReason.UnknownChannel, "channel not configured: " + values.GetString());
+                Reject(RejectReason.UnknownChannel, "channel not configured: " + Printable(ref values));
                 values.Read();
                 values.Skip();
                 continue;
@@ -247,6 +311,59 @@ internal sealed partial class MessageParser
             values.Read();
             AddValue(ref values, chamber, channel, timestampUs, seq, batch);
         }
+    }
+
+    /// <summary>
+    /// True when the property under <paramref name="reader"/> is <paramref name="name"/> and was seen before in this
+    /// object; marks it seen otherwise.
+    /// </summary>
+    private static bool IsRepeat(ref Utf8JsonReader reader, ref bool seen, ReadOnlySpan<byte> name)
+    {
+        if (!reader.ValueTextEquals(name))
+        {
+            return false;
+        }
+        bool repeat = seen;
+        seen = true;
+        return repeat;
+    }
+
+    private static bool IsRepeatOf(ref Utf8JsonReader reader, bool seen, ReadOnlySpan<byte> name) => seen && reader.ValueTextEquals(name);
+
+    /// <summary>
+    /// Scans a values object once before anything is taken from it: a configured channel named twice makes the whole
+    /// object ambiguous (rejected), an object without any channel is counted as empty.
+    /// </summary>
+    private bool ValuesAreUnambiguous(Utf8JsonReader scan, ChamberRuntime chamber)
+    {
+        var channels = chamber.Channels;
+        Span<bool> seen = channels.Length <= 256 ? stackalloc bool[channels.Length] : new bool[channels.Length];
+        int properties = 0;
+        while (scan.Read() && scan.TokenType != JsonTokenType.EndObject)
+        {
+            properties++;
+            for (int i = 0; i < channels.Length; i++)
+            {
+                if (scan.ValueTextEquals(channels[i].Utf8Name))
+                {
+                    if (seen[i])
+                    {
+                        Reject(RejectReason.DuplicateKey, "channel " + channels[i].Name + " appears twice in one values object");
+                        return false;
+                    }
+                    seen[i] = true;
+                    break;
+                }
+            }
+            scan.Read();
+            scan.Skip();
+        }
+        if (properties == 0)
+        {
+            Reject(RejectReason.Empty, "values without any channel");
+            return false;
+        }
+        return true;
     }
 
     /// <summary>Reads the value of a "seq" property into <paramref name="seq"/>; rejects and skips it unless it is a non-negative integer.</summary>

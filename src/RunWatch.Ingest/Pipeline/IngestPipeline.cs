@@ -34,6 +34,7 @@ internal sealed class IngestPipeline
     private readonly IngestBatch _batch = new(4096);
     private readonly List<ChamberEvent> _events = [];
     private readonly RejectTally _tally = new();
+    private long _lastParserFaultLog;
     private MessageParser? _parser;
 
     public IngestPipeline(
@@ -177,7 +178,13 @@ internal sealed class IngestPipeline
                 _tally.Add(RejectReason.ParserFault, ex.GetType().Name);
                 _batch.DeadLetters.Add(new DeadLetter(message.ReceivedAt, message.Topic, RejectReasons.Code(RejectReason.ParserFault), ex.Message,
                     message.Payload[..Math.Min(message.Length, _deadLetterPayloadBytes)].ToArray(), message.PayloadLength));
-                Log.ParserFault(_logger, message.Topic, ex);
+                // One stack trace per interval at most: a flood of one bad input must not fill the disk with logs.
+                long now = _timeProvider.GetTimestamp();
+                if (_lastParserFaultLog == 0 || _timeProvider.GetElapsedTime(_lastParserFaultLog, now) >= _options.RejectLogInterval)
+                {
+                    _lastParserFaultLog = now;
+                    Log.ParserFault(_logger, message.Topic, ex);
+                }
             }
         }
     }

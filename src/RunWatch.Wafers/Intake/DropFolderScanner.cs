@@ -1,8 +1,11 @@
+using System.IO.Enumeration;
+
 namespace RunWatch.Wafers.Intake;
 
 /// <summary>
 /// One pass over the drop folder: finds files that have stopped growing and passed the name checks. Never moves,
-/// renames or changes a file. Symbolic links are not followed out of the folder.
+/// renames or changes a file. Symbolic links, empty files and anything that is not a regular file are refused and
+/// reported once each; links are never followed.
 /// </summary>
 internal sealed class DropFolderScanner
 {
@@ -32,15 +35,27 @@ internal sealed class DropFolderScanner
         {
             RecurseSubdirectories = true,
             IgnoreInaccessible = true,
-            AttributesToSkip = FileAttributes.ReparsePoint,
+            AttributesToSkip = 0,
             ReturnSpecialDirectories = false,
         };
-        foreach (string full in Directory.EnumerateFiles(_root, "*", options))
+        // Symbolic links are listed (to be refused, visibly) but never followed, neither into folders nor to files.
+        var entries = new FileSystemEnumerable<(string Path, bool Link)>(_root,
+            (ref FileSystemEntry e) => (e.ToFullPath(), (e.Attributes & FileAttributes.ReparsePoint) != 0), options)
+        {
+            ShouldIncludePredicate = (ref FileSystemEntry e) => !e.IsDirectory || (e.Attributes & FileAttributes.ReparsePoint) != 0,
+            ShouldRecursePredicate = (ref FileSystemEntry e) => (e.Attributes & FileAttributes.ReparsePoint) == 0,
+        };
+        foreach (var (full, link) in entries)
         {
             string relative = Path.GetRelativePath(_root, full);
             if (relative.EndsWith(".json", StringComparison.OrdinalIgnoreCase))
             {
                 continue; // sidecars travel with their image
+            }
+            if (link)
+            {
+                Refuse(relative, "a symbolic link; copy the file itself into the drop folder", refused);
+                continue;
             }
             string? reason = FieldFileNameCheck.Refusal(relative);
             if (reason is null && FieldFileNameCheck.ResolveInside(_root, relative) is null)
@@ -49,10 +64,7 @@ internal sealed class DropFolderScanner
             }
             if (reason is not null)
             {
-                if (_refusedReported.Add(relative))
-                {
-                    refused.Add(new RefusedFile(relative, reason));
-                }
+                Refuse(relative, reason, refused);
                 continue;
             }
             FileInfo info;
@@ -72,8 +84,23 @@ internal sealed class DropFolderScanner
             var lastWrite = new DateTimeOffset(info.LastWriteTimeUtc, TimeSpan.Zero);
             if (_tracker.Observe(full, info.Length, lastWrite, now))
             {
-                arrived.Add(new ArrivedField(full, relative, info.Length, lastWrite));
+                if (info.Length == 0)
+                {
+                    Refuse(relative, "empty (zero bytes) or not a regular file (FIFO, device, socket)", refused);
+                }
+                else
+                {
+                    arrived.Add(new ArrivedField(full, relative, info.Length, lastWrite));
+                }
             }
+        }
+    }
+
+    private void Refuse(string relative, string reason, List<RefusedFile> refused)
+    {
+        if (_refusedReported.Add(relative))
+        {
+            refused.Add(new RefusedFile(relative, reason));
         }
     }
 }

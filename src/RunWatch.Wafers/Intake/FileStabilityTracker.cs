@@ -22,7 +22,9 @@ internal sealed class FileStabilityTracker(TimeSpan stableFor)
                 {
                     return false; // already reported
                 }
-                if (now - prior.Since >= StableFor && size > 0)
+                // A file that stays at zero bytes counts as stable too: the scanner refuses it (empty, or a FIFO,
+                // device or socket, which report length 0) instead of watching it for ever.
+                if (now - prior.Since >= StableFor)
                 {
                     _seen[path] = (size, lastWrite, DateTimeOffset.MaxValue);
                     return true;

@@ -24,6 +24,11 @@ public sealed class FieldAnalysisService(
     TimeProvider time,
     ILogger<FieldAnalysisService> logger) : BackgroundService
 {
+    // Who holds a field while it is analysed: daemons sharing one store (fleet mode) each claim a field before
+    // analysing it, so a field is analysed once; a claim of a daemon that died runs out after the lease.
+    private static readonly string Worker = Environment.MachineName + ":" + Environment.ProcessId.ToString(System.Globalization.CultureInfo.InvariantCulture);
+    private static readonly TimeSpan ClaimLease = TimeSpan.FromMinutes(15);
+
     /// <summary>Raised after a wafer's report was written (for the dashboard and the demo).</summary>
     public event Action<WaferReportOutcome>? ReportWritten;
 
@@ -68,6 +73,11 @@ public sealed class FieldAnalysisService(
         {
             return (false, null);
         }
+        if (!await wafers.ClaimFieldAsync(field.Id, Worker, time.GetUtcNow(), ClaimLease, cancellationToken).ConfigureAwait(false))
+        {
+            // Another daemon of the fleet is analysing it.
+            return (false, null);
+        }
         RunRecord? run = await wafers.FindRunOfWaferAsync(field.Wafer, cancellationToken).ConfigureAwait(false);
         DateTimeOffset started = time.GetUtcNow();
         var settings = new FieldAnalysisOptions
@@ -78,7 +88,9 @@ public sealed class FieldAnalysisService(
         var clock = Stopwatch.StartNew();
         try
         {
-            var (analysis, raster) = await Task.Run(() => FieldAnalyzer.AnalyzeWithRaster(field.FilePath, settings), cancellationToken).ConfigureAwait(false);
+            // The analysis does not watch a token; past its budget the field fails and the queue goes on without it.
+            var (analysis, raster) = await Task.Run(() => FieldAnalyzer.AnalyzeWithRaster(field.FilePath, settings), cancellationToken)
+                .WaitAsync(options.Value.FieldAnalysisBudget, time, cancellationToken).ConfigureAwait(false);
             FieldResult result = FieldResultMapper.From(analysis);
             await OverlayWriter.WriteAsync(analysis, raster, WaferFiles.OverlayPath(reports.FolderFor(field.Wafer), field.Id), cancellationToken).ConfigureAwait(false);
             await wafers.SaveAnalysisAsync(new AnalysisRecord
@@ -105,8 +117,12 @@ public sealed class FieldAnalysisService(
             Log.FieldAnalysed(logger, field.Id, analysis.Wires.Count, clock.ElapsedMilliseconds);
             return (true, field.Wafer);
         }
-        catch (Exception ex) when (ex is ImageDecodeException or FieldSidecarException or InvalidOperationException or IOException or ArgumentException)
+        catch (Exception ex) when (ex is ImageDecodeException or FieldSidecarException or InvalidOperationException or IOException or ArgumentException or TimeoutException)
         {
+            if (ex is TimeoutException)
+            {
+                ex = new TimeoutException("analysis took longer than its budget (WaferPipeline:FieldAnalysisBudget " + options.Value.FieldAnalysisBudget.ToString() + "); the field is skipped");
+            }
             Log.FieldFailed(logger, field.Id, ex.Message);
             await wafers.SaveAnalysisAsync(new AnalysisRecord
             {

@@ -87,6 +87,30 @@ public sealed class FieldIntake
         return (stored, true);
     }
 
+    /// <summary>Prefix of <see cref="FieldRecord.Problem"/> for a file refused at intake.</summary>
+    public const string RefusedPrefix = "refused: ";
+
+    /// <summary>
+    /// Stores a file the drop folder or intake refused (a symbolic link, an empty file, a FIFO, an unreadable or
+    /// oversize sidecar, any intake failure) as an unassigned field whose problem says why, so it is listed on the
+    /// dashboard instead of only in a log line. One row per path: a second refusal of the same path changes nothing.
+    /// </summary>
+    public async Task<FieldRecord> RecordRefusalAsync(string fullPath, string relativePath, string reason, CancellationToken cancellationToken)
+    {
+        string key = "refused:" + Convert.ToHexStringLower(SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(relativePath)));
+        var field = new FieldRecord
+        {
+            FilePath = fullPath,
+            RelativePath = relativePath,
+            Sha256 = key,
+            ImportedAt = _time.GetUtcNow(),
+            Status = FieldStatus.Unassigned,
+            Problem = RefusedPrefix + reason,
+        };
+        var (stored, _) = await _wafers.AddFieldAsync(field, cancellationToken).ConfigureAwait(false);
+        return stored;
+    }
+
     /// <summary>A person assigns an unassigned field to a wafer; recorded in the audit trail with who did it.</summary>
     /// <exception cref="KeyNotFoundException">No such field.</exception>
     /// <exception cref="InvalidOperationException">The wafer id is not plausible, or no run names the wafer.</exception>
@@ -99,6 +123,10 @@ public sealed class FieldIntake
         }
         FieldRecord field = await _wafers.GetFieldAsync(fieldId, cancellationToken).ConfigureAwait(false)
             ?? throw new KeyNotFoundException("no field with id " + fieldId);
+        if (field.Problem is { } refusal && refusal.StartsWith(RefusedPrefix, StringComparison.Ordinal))
+        {
+            throw new InvalidOperationException("this file was refused at intake (" + refusal[RefusedPrefix.Length..] + "); put a proper copy into the drop folder");
+        }
         RunRecord run = await _wafers.FindRunOfWaferAsync(wafer, cancellationToken).ConfigureAwait(false)
             ?? throw new InvalidOperationException($"no run has named wafer {wafer}; a field can only join a wafer whose run is known");
         await _wafers.UpsertWaferAsync(wafer, run.Id, run.Recipe, cancellationToken).ConfigureAwait(false);

@@ -47,12 +47,7 @@ public sealed class FieldIntakeService(
                 scanner.Scan(time.GetUtcNow(), arrived, refused);
                 foreach (RefusedFile r in refused)
                 {
-                    Log.FileRefused(logger, r.RelativePath, r.Reason);
-                    _refused.Enqueue(r);
-                    while (_refused.Count > 200)
-                    {
-                        _refused.Dequeue();
-                    }
+                    await RefuseAsync(r, stoppingToken).ConfigureAwait(false);
                 }
                 foreach (ArrivedField field in arrived)
                 {
@@ -60,13 +55,11 @@ public sealed class FieldIntakeService(
                     {
                         await intake.TakeInAsync(field, stoppingToken).ConfigureAwait(false);
                     }
-                    catch (IOException ex)
+                    catch (Exception ex) when (ex is not OperationCanceledException and not StoreUnavailableException)
                     {
+                        // Whatever a file does to intake, it becomes a stored, visible refusal; the watcher goes on.
                         Log.IntakeFailed(logger, field.RelativePath, ex.Message);
-                    }
-                    catch (UnauthorizedAccessException ex)
-                    {
-                        Log.IntakeFailed(logger, field.RelativePath, ex.Message);
+                        await RefuseAsync(new RefusedFile(field.RelativePath, "could not be taken in: " + ex.Message), stoppingToken).ConfigureAwait(false);
                     }
                 }
                 await intake.RetryUnassignedAsync(stoppingToken).ConfigureAwait(false);
@@ -90,6 +83,17 @@ public sealed class FieldIntakeService(
                 break;
             }
         }
+    }
+
+    private async Task RefuseAsync(RefusedFile refusal, CancellationToken cancellationToken)
+    {
+        Log.FileRefused(logger, refusal.RelativePath, refusal.Reason);
+        _refused.Enqueue(refusal);
+        while (_refused.Count > 200)
+        {
+            _refused.Dequeue();
+        }
+        await intake.RecordRefusalAsync(Path.Combine(DropFolder, refusal.RelativePath), refusal.RelativePath, refusal.Reason, cancellationToken).ConfigureAwait(false);
     }
 
     private void Wake()

@@ -28,6 +28,12 @@ public sealed class WaferPipelineOptions
 
     public double CaptureRadiusSearchMax { get; set; } = 3.0;
 
+    /// <summary>
+    /// Longest one field's analysis may take; a field over it is marked failed and the queue moves on (the bounded
+    /// inputs keep real fields far below it: a 100-megapixel field takes seconds). <value>Default 2 minutes.</value>
+    /// </summary>
+    public TimeSpan FieldAnalysisBudget { get; set; } = TimeSpan.FromMinutes(2);
+
     /// <summary>Returns the problems with these options, empty when valid.</summary>
     public IReadOnlyList<string> Validate()
     {
@@ -44,9 +50,14 @@ public sealed class WaferPipelineOptions
         {
             problems.Add("WaferPipeline:DefaultProcess is empty");
         }
-        if (DefaultPixelSizeNm is { } p && !(p > 0 && double.IsFinite(p)))
+        if (DefaultPixelSizeNm is { } p && RunWatch.Imaging.Scale.FieldValueBounds.Check("WaferPipeline:DefaultPixelSizeNm", p,
+            RunWatch.Imaging.Scale.FieldValueBounds.MinPixelSizeNm, RunWatch.Imaging.Scale.FieldValueBounds.MaxPixelSizeNm, "nm") is { } pixelProblem)
         {
-            problems.Add("WaferPipeline:DefaultPixelSizeNm must be a positive number");
+            problems.Add(pixelProblem);
+        }
+        if (FieldAnalysisBudget <= TimeSpan.Zero || FieldAnalysisBudget > TimeSpan.FromHours(1))
+        {
+            problems.Add("WaferPipeline:FieldAnalysisBudget must be above 0 and at most 1 hour");
         }
         if (PredictionFields is < 1 or > 1000)
         {

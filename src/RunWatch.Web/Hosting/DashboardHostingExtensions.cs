@@ -1,10 +1,14 @@
 using System.Security.Claims;
 using System.Text.Json.Serialization;
+using System.Threading.RateLimiting;
+using Microsoft.AspNetCore.Antiforgery;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Authentication.Cookies;
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Http;
+using Microsoft.AspNetCore.HttpOverrides;
+using Microsoft.AspNetCore.RateLimiting;
 using Microsoft.AspNetCore.Mvc;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
@@ -81,7 +85,35 @@ public static partial class DashboardHostingExtensions
         services.AddAuthorizationBuilder()
             .AddPolicy(DashboardRoles.CanActPolicy, p => p.RequireRole(DashboardRoles.Engineer, DashboardRoles.Admin))
             .AddPolicy(DashboardRoles.AdminPolicy, p => p.RequireRole(DashboardRoles.Admin));
-        services.AddAntiforgery();
+        // Behind a TLS proxy the request scheme comes from X-Forwarded-Proto (trusted from loopback proxies only, the
+        // framework's default), so SameAsRequest marks both cookies Secure there.
+        services.AddAntiforgery(o =>
+        {
+            o.Cookie.SecurePolicy = CookieSecurePolicy.SameAsRequest;
+            o.Cookie.SameSite = SameSiteMode.Strict;
+        });
+        services.Configure<ForwardedHeadersOptions>(o => o.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto);
+        services.TryAddSingleton<LoginThrottle>();
+        services.AddRateLimiter(o =>
+        {
+            o.RejectionStatusCode = StatusCodes.Status429TooManyRequests;
+            o.OnRejected = (context, _) =>
+            {
+                context.HttpContext.Response.Headers.RetryAfter = ((int)Math.Ceiling(context.HttpContext.RequestServices
+                    .GetRequiredService<IOptions<DashboardOptions>>().Value.LoginWindow.TotalSeconds)).ToString(System.Globalization.CultureInfo.InvariantCulture);
+                return ValueTask.CompletedTask;
+            };
+            o.AddPolicy(LoginThrottle.AddressPolicy, http =>
+            {
+                var d = http.RequestServices.GetRequiredService<IOptions<DashboardOptions>>().Value;
+                return RateLimitPartition.GetFixedWindowLimiter(http.Connection.RemoteIpAddress?.ToString() ?? "unknown", _ => new FixedWindowRateLimiterOptions
+                {
+                    PermitLimit = d.LoginAttemptsPerAddress,
+                    Window = d.LoginWindow,
+                    QueueLimit = 0,
+                });
+            });
+        });
         services.ConfigureHttpJsonOptions(o =>
         {
             o.SerializerOptions.Converters.Add(new JsonStringEnumConverter());
@@ -118,8 +150,14 @@ public static partial class DashboardHostingExtensions
         {
             LogNoUsers(app.Logger, DashboardOptions.SectionName);
         }
+        app.UseForwardedHeaders();
+        app.UseMiddleware<SecurityHeaders>();
+        app.UseRateLimiter();
         app.UseAuthentication();
         app.UseAuthorization();
+        // After authentication (an antiforgery token is bound to the signed-in user) and authorization (401 and 403
+        // for the role come first and say more).
+        app.UseMiddleware<SameOriginGuard>();
         app.UseAntiforgery();
         app.MapStaticAssets().AllowAnonymous();
         app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
@@ -138,11 +176,22 @@ public static partial class DashboardHostingExtensions
 
     private static void MapAccount(WebApplication app)
     {
-        app.MapPost("/account/login", async (HttpContext http, UserDirectory users, ILoggerFactory loggers,
+        app.MapPost("/account/login", async (HttpContext http, UserDirectory users, LoginThrottle throttle, ILoggerFactory loggers,
             [FromForm] string username, [FromForm] string password, [FromForm] string? returnUrl) =>
         {
-            var user = users.Verify(username, password);
             var log = loggers.CreateLogger("RunWatch.Web.Login");
+            if (returnUrl is { Length: > 0 } && !ReturnUrl.IsLocalPath(returnUrl))
+            {
+                return Results.Problem("returnUrl must be a path on this server without control characters", statusCode: StatusCodes.Status400BadRequest);
+            }
+            if (!throttle.TryAttempt(username))
+            {
+                LogLoginThrottled(log);
+                http.Response.Headers.RetryAfter = ((int)Math.Ceiling(http.RequestServices.GetRequiredService<IOptions<DashboardOptions>>().Value.LoginWindow.TotalSeconds))
+                    .ToString(System.Globalization.CultureInfo.InvariantCulture);
+                return Results.Problem("Too many login attempts for this user name; wait and try again.", statusCode: StatusCodes.Status429TooManyRequests);
+            }
+            var user = users.Verify(username, password);
             if (user is null)
             {
                 LogLoginRefused(log);
@@ -153,12 +202,17 @@ public static partial class DashboardHostingExtensions
                 CookieAuthenticationDefaults.AuthenticationScheme);
             await http.SignInAsync(CookieAuthenticationDefaults.AuthenticationScheme, new ClaimsPrincipal(identity));
             LogLoggedIn(log, user.Name, user.Role);
-            bool local = returnUrl is { Length: > 0 } r && r.StartsWith('/') && !r.StartsWith("//", StringComparison.Ordinal) && !r.StartsWith("/\\", StringComparison.Ordinal);
-            return Results.LocalRedirect(local ? returnUrl! : "/");
-        }).AllowAnonymous();
+            return Results.LocalRedirect(returnUrl is { Length: > 0 } ? returnUrl : "/");
+        }).AllowAnonymous().RequireRateLimiting(LoginThrottle.AddressPolicy);
 
-        app.MapPost("/account/logout", async (HttpContext http) =>
+        // The form carries its antiforgery token; an endpoint without form parameters is not checked by the
+        // framework, so the check is explicit.
+        app.MapPost("/account/logout", async (HttpContext http, IAntiforgery antiforgery) =>
         {
+            if (!await antiforgery.IsRequestValidAsync(http))
+            {
+                return Results.Problem("Log out from the dashboard's own page (antiforgery token missing or invalid).", statusCode: StatusCodes.Status400BadRequest);
+            }
             await http.SignOutAsync(CookieAuthenticationDefaults.AuthenticationScheme);
             return Results.Redirect("/login");
         }).AllowAnonymous();
@@ -180,6 +234,9 @@ public static partial class DashboardHostingExtensions
 
     [LoggerMessage(EventId = 6011, Level = LogLevel.Information, Message = "Dashboard login refused")]
     private static partial void LogLoginRefused(ILogger logger);
+
+    [LoggerMessage(EventId = 6013, Level = LogLevel.Warning, Message = "Dashboard login throttled (too many attempts for one user name)")]
+    private static partial void LogLoginThrottled(ILogger logger);
 
     [LoggerMessage(EventId = 6012, Level = LogLevel.Information, Message = "Dashboard login: {User} ({Role})")]
     private static partial void LogLoggedIn(ILogger logger, string user, string role);

@@ -11,7 +11,24 @@ namespace RunWatch.Web.Security;
 public sealed class UserDirectory
 {
     private readonly ConcurrentDictionary<string, DashboardUser> _users = new(StringComparer.OrdinalIgnoreCase);
-    private readonly PasswordHasher<DashboardUser> _hasher = new();
+    private readonly IPasswordHasher<DashboardUser> _hasher;
+
+    // Checked against when the name is unknown, so that a known and an unknown name cost the same PBKDF2 work and
+    // cannot be told apart by timing.
+    private readonly DashboardUser _standIn;
+
+    /// <summary>A directory with ASP.NET Core Identity's default password hasher.</summary>
+    public UserDirectory()
+        : this(new PasswordHasher<DashboardUser>())
+    {
+    }
+
+    internal UserDirectory(IPasswordHasher<DashboardUser> hasher)
+    {
+        _hasher = hasher;
+        var nobody = new DashboardUser("", DashboardRoles.Viewer, "");
+        _standIn = nobody with { PasswordHash = hasher.HashPassword(nobody, RandomNumberGenerator.GetHexString(32)) };
+    }
 
     /// <summary>Number of users known.</summary>
     public int Count => _users.Count;
@@ -40,16 +57,20 @@ public sealed class UserDirectory
     /// <summary>Hashes a password the way configuration expects it.</summary>
     public string HashPassword(string password) => _hasher.HashPassword(new DashboardUser("", DashboardRoles.Viewer, ""), password);
 
-    /// <summary>Returns the user if the name is known and the password matches; otherwise null.</summary>
+    /// <summary>
+    /// Returns the user if the name is known and the password matches; otherwise null. Does one hash verification
+    /// whatever the outcome (an unknown name is checked against a stand-in hash), so the time taken does not tell
+    /// whether the name exists.
+    /// </summary>
     public DashboardUser? Verify(string name, string password)
     {
-        if (string.IsNullOrEmpty(name) || string.IsNullOrEmpty(password) || !_users.TryGetValue(name, out var user))
-        {
-            return null;
-        }
+        DashboardUser? found = null;
+        bool known = !string.IsNullOrEmpty(name) && _users.TryGetValue(name, out found);
+        var user = known ? found! : _standIn;
         try
         {
-            return _hasher.VerifyHashedPassword(user, user.PasswordHash, password) == PasswordVerificationResult.Failed ? null : user;
+            bool matches = _hasher.VerifyHashedPassword(user, user.PasswordHash, password ?? "") != PasswordVerificationResult.Failed;
+            return known && matches && !string.IsNullOrEmpty(password) ? user : null;
         }
         catch (FormatException)
         {

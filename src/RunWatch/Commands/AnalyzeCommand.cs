@@ -48,8 +48,8 @@ internal static class AnalyzeCommand
             int? rows = parse.GetValue(band);
             long? mp = parse.GetValue(maxPixels);
             string? problem =
-                px is { } p && !(p > 0 && double.IsFinite(p)) ? "--pixel-size-nm must be a positive number"
-                : lUm is { } l && !(l > 0 && double.IsFinite(l)) ? "--diffusion-length-um must be a positive number"
+                px is { } p && RunWatch.Imaging.Scale.FieldValueBounds.Check("--pixel-size-nm", p, RunWatch.Imaging.Scale.FieldValueBounds.MinPixelSizeNm, RunWatch.Imaging.Scale.FieldValueBounds.MaxPixelSizeNm, "nm") is { } pixelProblem ? pixelProblem
+                : lUm is { } l && RunWatch.Imaging.Scale.FieldValueBounds.Check("--diffusion-length-um", l, RunWatch.Imaging.Scale.FieldValueBounds.MinDiffusionLengthNm / 1000, RunWatch.Imaging.Scale.FieldValueBounds.MaxDiffusionLengthNm / 1000, "µm") is { } lengthProblem ? lengthProblem
                 : t is < 0 or > 65535 ? "--threshold must lie in 0..65535"
                 : rows is < 0 ? "--exclude-bottom-rows must not be negative"
                 : mp is <= 0 ? "--max-megapixels must be positive"

@@ -15,6 +15,8 @@ internal static class CommandCatalog
         root.Subcommands.Add(ReportCommand.Create());
         root.Subcommands.Add(AnalyzeCommand.Create());
         root.Subcommands.Add(HashPasswordCommand.Create());
+        root.Subcommands.Add(BackupCommand.CreateBackup());
+        root.Subcommands.Add(BackupCommand.CreateRestore());
         return root;
     }
 }

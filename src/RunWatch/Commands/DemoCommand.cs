@@ -24,7 +24,7 @@ internal static class DemoCommand
         command.Options.Add(exitWhenDone);
         command.SetAction(async (parseResult, cancellationToken) =>
         {
-            string folder = Path.GetFullPath(parseResult.GetValue(dataFolder)!);
+            string folder = RunWatch.Hosting.RuntimeFolders.Resolve(parseResult.GetValue(dataFolder)!);
             try
             {
                 PrepareFolder(folder);

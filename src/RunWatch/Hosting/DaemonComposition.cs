@@ -31,6 +31,16 @@ public static class DaemonComposition
         // Keep the usual precedence: environment variables and the command line override every file.
         builder.Configuration.AddEnvironmentVariables();
         builder.Configuration.AddCommandLine(args);
+        // Relative data and log paths never land in a source folder (RuntimeFolders); absolute ones stay as given.
+        var absolute = new Dictionary<string, string?>(StringComparer.Ordinal);
+        foreach (string key in (string[])["Storage:DataDirectory", "Serilog:WriteTo:1:Args:path"])
+        {
+            if (builder.Configuration[key] is { Length: > 0 } configured && !Path.IsPathRooted(configured))
+            {
+                absolute[key] = RuntimeFolders.Resolve(configured);
+            }
+        }
+        builder.Configuration.AddInMemoryCollection(absolute);
         if (string.IsNullOrEmpty(builder.Configuration["Urls"]))
         {
             builder.WebHost.UseUrls("http://127.0.0.1:5080");

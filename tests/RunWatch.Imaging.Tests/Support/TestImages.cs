@@ -54,7 +54,7 @@ internal static class TestImages
     }
 
     // CRC-32 of PNG (ISO/IEC 15948 Annex D), polynomial 0xEDB88320.
-    private static uint Crc32(ReadOnlySpan<byte> data)
+    internal static uint Crc32(ReadOnlySpan<byte> data)
     {
         uint c = 0xFFFFFFFF;
         foreach (byte d in data)

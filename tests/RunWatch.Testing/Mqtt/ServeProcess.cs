@@ -79,7 +79,9 @@ public sealed class ServeProcess : IAsyncDisposable
     {
         try
         {
-            string text = await Http.GetStringAsync(new Uri("http://127.0.0.1:" + HttpPort.ToString(CultureInfo.InvariantCulture) + "/healthz")).ConfigureAwait(false);
+            // 503 while unhealthy (broker disconnected) still carries the JSON body.
+            using var response = await Http.GetAsync(new Uri("http://127.0.0.1:" + HttpPort.ToString(CultureInfo.InvariantCulture) + "/healthz")).ConfigureAwait(false);
+            string text = await response.Content.ReadAsStringAsync().ConfigureAwait(false);
             return JsonDocument.Parse(text);
         }
         catch (HttpRequestException)

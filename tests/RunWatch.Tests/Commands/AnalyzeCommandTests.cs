@@ -89,6 +89,6 @@ public sealed class AnalyzeCommandTests : IDisposable
         {
             Console.SetError(saved);
         }
-        Assert.Contains("--pixel-size-nm must be a positive number", error.ToString());
+        Assert.Contains("--pixel-size-nm must lie between 0.001 and 100000 nm, got -3", error.ToString());
     }
 }

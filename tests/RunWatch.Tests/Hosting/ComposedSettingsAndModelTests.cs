@@ -190,6 +190,8 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
     private async Task<HttpClient> LoginAsync(string user)
     {
         var client = new HttpClient(new HttpClientHandler { CookieContainer = new CookieContainer(), AllowAutoRedirect = false }) { BaseAddress = new Uri(_baseUrl) };
+        // A client that is not a browser names the dashboard as its origin for state-changing requests (docs/security.md).
+        client.DefaultRequestHeaders.Add("Origin", _baseUrl);
         string page = await client.GetStringAsync("/login");
         string input = Regex.Match(page, "<input[^>]*__RequestVerificationToken[^>]*>").Value;
         string token = WebUtility.HtmlDecode(Regex.Match(input, "value=\"([^\"]+)\"").Groups[1].Value);

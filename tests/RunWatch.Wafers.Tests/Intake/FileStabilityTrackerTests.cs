@@ -31,10 +31,13 @@ public sealed class FileStabilityTrackerTests
     }
 
     [Fact]
-    public void Observe_EmptyFile_NeverStable()
+    public void Observe_EmptyFile_StableOnceSoTheScannerRefusesIt()
     {
+        // An empty file (or a FIFO, which reports length 0) used to be watched for ever, never reported.
         var tracker = new FileStabilityTracker(TimeSpan.FromSeconds(1));
         tracker.Observe("a.png", 0, T0, T0);
-        Assert.False(tracker.Observe("a.png", 0, T0, T0.AddSeconds(5)));
+        Assert.True(tracker.Observe("a.png", 0, T0, T0.AddSeconds(5)));
+        Assert.False(tracker.Observe("a.png", 0, T0, T0.AddSeconds(9)));
+        Assert.Equal(0, tracker.Pending);
     }
 }

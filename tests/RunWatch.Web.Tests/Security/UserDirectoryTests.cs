@@ -1,3 +1,4 @@
+using Microsoft.AspNetCore.Identity;
 using RunWatch.Web.Security;
 using Xunit;
 
@@ -48,5 +49,43 @@ public sealed class UserDirectoryTests
         Assert.Equal(DashboardRoles.All, demo.Select(d => d.Role));
         Assert.Equal(3, demo.Select(d => d.Password).Distinct().Count());
         Assert.All(demo, d => Assert.Equal(d.Role, users.Verify(d.Name, d.Password)?.Role));
+    }
+
+    [Theory]
+    [InlineData("nobody", "s3cret-enough")]
+    [InlineData("", "s3cret-enough")]
+    [InlineData("tech", "")]
+    [InlineData("nobody", "")]
+    public void Verify_UnknownNameOrEmptyInput_DoesTheSameHashWorkAsAKnownName(string name, string password)
+    {
+        var hasher = new RecordingHasher();
+        var users = new UserDirectory(hasher);
+        users.AddWithPassword("tech", DashboardRoles.Viewer, "s3cret-enough");
+        hasher.Verified.Clear();
+        Assert.NotNull(users.Verify("tech", "s3cret-enough"));
+        string knownHash = Assert.Single(hasher.Verified);
+        hasher.Verified.Clear();
+
+        Assert.Null(users.Verify(name, password));
+
+        // One PBKDF2 verification, against a hash with the same header (format, PRF, iteration count, salt length:
+        // the first 13 bytes of Identity's v3 format, COMMON PRACTICE), so the work done is the same.
+        string standIn = Assert.Single(hasher.Verified);
+        Assert.Equal(Convert.FromBase64String(knownHash)[..13], Convert.FromBase64String(standIn)[..13]);
+    }
+
+    private sealed class RecordingHasher : IPasswordHasher<DashboardUser>
+    {
+        private readonly PasswordHasher<DashboardUser> _inner = new();
+
+        public List<string> Verified { get; } = [];
+
+        public string HashPassword(DashboardUser user, string password) => _inner.HashPassword(user, password);
+
+        public PasswordVerificationResult VerifyHashedPassword(DashboardUser user, string hashedPassword, string providedPassword)
+        {
+            Verified.Add(hashedPassword);
+            return _inner.VerifyHashedPassword(user, hashedPassword, providedPassword);
+        }
     }
 }
