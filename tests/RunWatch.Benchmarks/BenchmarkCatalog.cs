@@ -7,9 +7,13 @@ internal static class BenchmarkCatalog
     [
         new ImagingBenchmark(),
         new CaptureZoneBenchmark(),
+        new DiffusionSolverBenchmark(),
+        new ModelPredictBenchmark(),
         new ThermalBenchmark(),
         new IngestBenchmark(),
         new StoreWriteBenchmark(),
+        new PostgresWriteBenchmark(),
+        new FleetIngestBenchmark(),
         new DashboardBenchmark(),
     ];
 }

@@ -48,19 +48,6 @@ public sealed class WaferReportDigestJsonTests
     }
 
     [Fact]
-    public void Read_ComparisonAsTheJsonReportWritesIt_ReadBackTyped()
-    {
-        // The JSON report's "comparison" member (Reports' ComparisonFigures) and the digest's share their names.
-        const string Stored = """{"verdict":null,"comparison":{"count":240,"rSquared":0.71,"rmseNm":3.1,"biasNm":0.8,"meanAbsoluteErrorNm":2.4}}""";
-
-        WaferReportDigest digest = WaferReportDigestJson.Read(Stored);
-        WaferReportDigest again = WaferReportDigestJson.Read(WaferReportDigestJson.Write(digest));
-
-        Assert.Equal(new WaferComparisonDigest(240, 0.71, 3.1, 0.8, 2.4), digest.Comparison);
-        Assert.Equal(digest.Comparison, again.Comparison);
-    }
-
-    [Fact]
     public void Read_NotADigest_EmptyDigestNotAnException()
     {
         Assert.Equal(new WaferReportDigest(null, null, null), WaferReportDigestJson.Read("{\"statistics\":"));

@@ -179,10 +179,8 @@ public sealed class WaferReportService
             ["csv"] = written.CsvPath,
             ["json"] = written.JsonPath,
         };
-        WaferComparisonDigest? comparison = evaluation.Comparison is { } c
-            ? new WaferComparisonDigest(c.Count, c.RSquared, c.RmseNm, c.BiasNm, c.MeanAbsoluteErrorNm)
-            : null;
-        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce, comparison));
+        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce,
+            evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null));
         string verdict = verdictInForce.Outcome.ToString().ToLowerInvariant();
         foreach (var (format, path) in files)
         {

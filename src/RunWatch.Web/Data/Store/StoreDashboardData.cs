@@ -95,7 +95,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             summary = summary with { Verdict = verdicts.TryGetValue(run.Id, out string? v) ? v : null };
             prediction = await wafers.GetRunPredictionAsync(run.Id, cancellationToken).ConfigureAwait(false);
         }
-        return new RunDetail(summary, thermal, Excursions(run.Excursions, run.LEffNm), prediction, channel);
+        return new RunDetail(summary, thermal, Excursions(run.Excursions, run.LEffNm), prediction, channel) { Diffusion = run.Summary?.Diffusion };
     }
 
     public Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken) =>

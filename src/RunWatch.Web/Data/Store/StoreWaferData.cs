@@ -146,12 +146,10 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
                     reasons.Add($"{rule.Outcome.ToString().ToLowerInvariant()}: {rule.Reason}");
                 }
                 // Every rule, passed ones included, with what was measured and the limits it was held to.
-                // Reports stored before some members existed read them as null.
-                all.Add(new VerdictRuleView(string.IsNullOrEmpty(rule.Description) ? rule.Rule ?? "" : rule.Description, rule.Measured, rule.Limit ?? "",
-                    rule.WarnLimit ?? "", rule.Unit ?? "", Outcome(rule.Outcome), rule.Reason ?? ""));
+                all.Add(new VerdictRuleView(rule.Rule, rule.Measured, rule.Limit, rule.WarnLimit, rule.Unit, Outcome(rule.Outcome), rule.Reason));
             }
-            PredictionAgreement? agreement = digest.Comparison is { } c
-                ? new PredictionAgreement(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm)
+            PredictionAgreement? agreement = digest.Agreement is { } a
+                ? new PredictionAgreement(a.Count, a.BiasNm, a.RmseNm, a.RSquared, a.MeanAbsoluteErrorNm)
                 : null;
             verdict = new VerdictView(Outcome(v.Outcome), reasons, at, all, agreement);
         }
