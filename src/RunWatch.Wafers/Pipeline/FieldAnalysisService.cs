@@ -92,7 +92,7 @@ public sealed class FieldAnalysisService(
                 WireCount = analysis.Wires.Count,
                 DiffusionLengthNm = run?.LEffNm,
                 SettingsJson = JsonSerializer.Serialize(new { settings.PixelSizeNm, settings.DiffusionLengthNm, settings.ManualThreshold, settings.MinWireAreaPixels }, PipelineJson.Options),
-                ResultsJson = JsonSerializer.Serialize(result, PipelineJson.Options),
+                ResultsJson = FieldResultJson.Write(result),
             }, cancellationToken).ConfigureAwait(false);
             await wafers.UpdateFieldAsync(field with
             {

@@ -1,4 +1,3 @@
-using System.Text.Json;
 using RunWatch.Core.Model;
 using RunWatch.Core.Wafers;
 using RunWatch.Storage;
@@ -71,8 +70,7 @@ public sealed class ProcessCalibrationService(IWaferStore wafers, TimeProvider t
                 {
                     continue;
                 }
-                FieldResult result = JsonSerializer.Deserialize<FieldResult>(analysis.ResultsJson, PipelineJson.Options)
-                    ?? throw new InvalidDataException($"analysis {analysis.Id} has empty results");
+                FieldResult result = FieldResultJson.Read(analysis.ResultsJson);
                 foreach (FieldWire w in result.Wires)
                 {
                     if (WaferEvaluator.Counts(w) && w.ZoneNormalised is { } a && a > 0 && double.IsFinite(a) && double.IsFinite(w.RadiusNm))

@@ -1,5 +1,4 @@
 using System.Globalization;
-using System.Text.Json;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
@@ -66,8 +65,7 @@ public sealed class WaferReportService
             {
                 continue;
             }
-            FieldResult result = JsonSerializer.Deserialize<FieldResult>(analysis.ResultsJson, PipelineJson.Options)
-                ?? throw new InvalidDataException($"analysis {analysis.Id} has empty results");
+            FieldResult result = FieldResultJson.Read(analysis.ResultsJson);
             fields.Add(result);
             string overlay = WaferFiles.OverlayPath(folder, field.Id);
             if (File.Exists(overlay))
@@ -181,7 +179,7 @@ public sealed class WaferReportService
             ["csv"] = written.CsvPath,
             ["json"] = written.JsonPath,
         };
-        string summary = await File.ReadAllTextAsync(written.JsonPath, cancellationToken).ConfigureAwait(false);
+        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce));
         string verdict = verdictInForce.Outcome.ToString().ToLowerInvariant();
         foreach (var (format, path) in files)
         {

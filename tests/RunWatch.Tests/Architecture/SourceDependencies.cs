@@ -6,7 +6,9 @@ namespace RunWatch.Tests.Architecture;
 /// <summary>
 /// Reads the dependencies of the rooms from the source itself: project references from the .csproj files, and
 /// folder-to-folder references inside a project from the namespaces its files name (using lines, @using lines in
-/// Razor files and fully qualified names). A folder's namespace is the project's name plus the folder's name.
+/// Razor files and fully qualified names). A folder's namespace is the project's name plus the folder's name. A name
+/// qualified only from a sibling namespace (<c>Thermal.PhysicalConstants</c> inside <c>RunWatch.Core.Model</c>) is not
+/// seen: it cannot be told from a member access by text alone, so such references are kept to folders already used.
 /// </summary>
 internal static partial class SourceDependencies
 {

@@ -102,7 +102,7 @@ public sealed class ComposedSettingsAndModelTests : IDisposable
                 Wafer = wafer, FilePath = "fields/" + wafer + ".png", RelativePath = wafer + ".png", Sha256 = "sha-" + wafer, Status = FieldStatus.Analysed,
             }, CancellationToken.None);
             var result = new FieldResult { FieldName = wafer, PixelSizeNm = 5, WidthNm = 20_000, AnalysedHeightNm = 20_000, Threshold = "otsu", AnalysedAreaCm2 = 4e-6, Wires = fieldWires };
-            await store.SaveAnalysisAsync(new AnalysisRecord { FieldId = field.Id, Status = "done", ResultsJson = JsonSerializer.Serialize(result, PipelineJson.Options) }, CancellationToken.None);
+            await store.SaveAnalysisAsync(new AnalysisRecord { FieldId = field.Id, Status = "done", ResultsJson = FieldResultJson.Write(result) }, CancellationToken.None);
             await store.SaveModelFitAsync(new ModelFitRecord { Process = Process, Model = ModelKinds.CaptureRadius, ParamsJson = ModelJson.Serialize(point), Wafers = [wafer] },
                 CancellationToken.None);
         }

@@ -40,7 +40,7 @@ internal static class StoredWafers
             FinishedAt = DateTimeOffset.UnixEpoch,
             Status = "done",
             WireCount = wires.Count,
-            ResultsJson = JsonSerializer.Serialize(result, PipelineJson.Options),
+            ResultsJson = FieldResultJson.Write(result),
         }, CancellationToken.None);
         if (capture is not null)
         {

@@ -1,7 +1,7 @@
 using System.Globalization;
-using System.Text.Json;
 using RunWatch.Core.Model;
 using RunWatch.Core.Thermal;
+using RunWatch.Core.Wafers;
 using RunWatch.Storage;
 using CoreArrheniusFit = RunWatch.Core.Model.ArrheniusFit;
 using CoreArrheniusPoint = RunWatch.Core.Model.ArrheniusPoint;
@@ -144,18 +144,12 @@ public sealed partial class StoreWaferData
                 {
                     continue;
                 }
-                using var doc = JsonDocument.Parse(json);
-                if (!doc.RootElement.TryGetProperty("wires", out JsonElement list) || list.ValueKind != JsonValueKind.Array)
+                foreach (FieldWire w in FieldResultJson.Read(json).Wires)
                 {
-                    continue;
-                }
-                foreach (JsonElement w in list.EnumerateArray())
-                {
-                    double a = Get(w, "zoneNormalised");
-                    double r = Get(w, "radiusNm");
-                    if (points.Count < MaxRadiusPoints && Flag(w, "vertical") && Flag(w, "interior") && a > 0 && double.IsFinite(r))
+                    double a = w.ZoneNormalised ?? double.NaN;
+                    if (points.Count < MaxRadiusPoints && WaferEvaluator.Counts(w) && a > 0 && double.IsFinite(w.RadiusNm))
                     {
-                        points.Add(new ModelPoint(a, r, wafer.Name));
+                        points.Add(new ModelPoint(a, w.RadiusNm, wafer.Name));
                     }
                 }
             }
@@ -163,7 +157,6 @@ public sealed partial class StoreWaferData
         return points;
     }
 
-    private static bool Flag(JsonElement e, string name) => e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.True;
 
     /// <summary>The newest accepted fit and the newest proposal made after it (fits are newest first).</summary>
     private static (ModelFitRecord? Accepted, ModelFitRecord? Proposed) AcceptedAndProposed(IReadOnlyList<ModelFitRecord> fits)

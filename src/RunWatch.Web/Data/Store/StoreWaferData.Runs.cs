@@ -1,4 +1,3 @@
-using System.Text.Json;
 using RunWatch.Storage;
 
 namespace RunWatch.Web.Data.Store;
@@ -49,12 +48,7 @@ public sealed partial class StoreWaferData
         {
             return null;
         }
-        using var doc = JsonDocument.Parse(json);
-        if (!doc.RootElement.TryGetProperty("prediction", out JsonElement p) || p.ValueKind != JsonValueKind.Object)
-        {
-            return null;
-        }
-        return new RadiusPrediction(Get(p, "meanRadiusNm"), Get(p, "radiusSdNm"), Get(p, "p05Nm"), Get(p, "p95Nm"));
+        return WaferReportDigestJson.Read(json).Prediction is { } p ? new RadiusPrediction(p.MeanRadiusNm, p.RadiusSdNm, p.P05Nm, p.P95Nm) : null;
     }
 
     /// <summary>Mean Clark–Evans R over the wafer's analysed fields (each field's own R), NaN when none has one.</summary>
@@ -68,8 +62,7 @@ public sealed partial class StoreWaferData
             {
                 continue;
             }
-            using var doc = JsonDocument.Parse(results);
-            double r = Get(doc.RootElement, "clarkEvansR");
+            double r = FieldResultJson.Read(results).ClarkEvansR ?? double.NaN;
             if (double.IsFinite(r))
             {
                 sum += r;

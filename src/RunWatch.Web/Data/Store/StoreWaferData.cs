@@ -1,5 +1,5 @@
 using System.Globalization;
-using System.Text.Json;
+using RunWatch.Core.Qc;
 using RunWatch.Storage;
 
 namespace RunWatch.Web.Data.Store;
@@ -128,29 +128,22 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
 
     private static (WaferStatistics?, VerdictView?) ReadSummary(string json, DateTimeOffset at)
     {
-        using var doc = JsonDocument.Parse(json);
-        JsonElement root = doc.RootElement;
-        WaferStatistics? statistics = null;
-        if (root.TryGetProperty("statistics", out JsonElement s) && s.ValueKind == JsonValueKind.Object)
-        {
-            statistics = new WaferStatistics((int)Get(s, "count"), Get(s, "densityPerCm2") / 1e8, Get(s, "meanRadiusNm"), Get(s, "radiusSdNm"), double.NaN, double.NaN);
-        }
+        WaferReportDigest digest = WaferReportDigestJson.Read(json);
+        WaferStatistics? statistics = digest.Statistics is { } s
+            ? new WaferStatistics(s.Count, s.DensityPerCm2 / 1e8, s.MeanRadiusNm, s.RadiusSdNm, double.NaN, double.NaN)
+            : null;
         VerdictView? verdict = null;
-        if (root.TryGetProperty("verdict", out JsonElement v) && v.ValueKind == JsonValueKind.Object)
+        if (digest.Verdict is { } v)
         {
-            var outcome = v.TryGetProperty("outcome", out JsonElement o) ? o.GetString() : null;
             var reasons = new List<string>();
-            if (v.TryGetProperty("rules", out JsonElement rules) && rules.ValueKind == JsonValueKind.Array)
+            foreach (QcRuleResult rule in v.Rules)
             {
-                foreach (JsonElement rule in rules.EnumerateArray())
+                if (rule.Outcome != QcOutcome.Pass)
                 {
-                    if (rule.TryGetProperty("outcome", out JsonElement ro) && ro.GetString() != "Pass" && rule.TryGetProperty("reason", out JsonElement reason))
-                    {
-                        reasons.Add($"{ro.GetString()!.ToLowerInvariant()}: {reason.GetString()}");
-                    }
+                    reasons.Add($"{rule.Outcome.ToString().ToLowerInvariant()}: {rule.Reason}");
                 }
             }
-            verdict = new VerdictView(outcome switch { "Pass" => VerdictOutcome.Pass, "Fail" => VerdictOutcome.Fail, _ => VerdictOutcome.Review }, reasons, at);
+            verdict = new VerdictView(v.Outcome switch { QcOutcome.Pass => VerdictOutcome.Pass, QcOutcome.Fail => VerdictOutcome.Fail, _ => VerdictOutcome.Review }, reasons, at);
         }
         return (statistics, verdict);
     }
@@ -176,7 +169,4 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
 
     private static double Number(string cell) =>
         double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) ? v : double.NaN;
-
-    private static double Get(JsonElement e, string name) =>
-        e.ValueKind == JsonValueKind.Object && e.TryGetProperty(name, out JsonElement v) && v.ValueKind == JsonValueKind.Number ? v.GetDouble() : double.NaN;
 }

@@ -4,6 +4,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Model;
 using RunWatch.Core.Safety;
+using RunWatch.Core.Wafers;
 using RunWatch.Storage;
 using RunWatch.Web.Components.Pages;
 using RunWatch.Web.Data;
@@ -135,16 +136,21 @@ public sealed class StoreBackedPagesTests : IDisposable
         await _harness.Store.UpsertWaferAsync("W-INV-1", null, "nw-inv", CancellationToken.None);
         var (field, _) = await _harness.Store.AddFieldAsync(new FieldRecord { Wafer = "W-INV-1", FilePath = "f.png", RelativePath = "f.png", Sha256 = "s1", Status = FieldStatus.Analysed },
             CancellationToken.None);
-        // As the pipeline stores a field result (camelCase JSON): one counted wire, one leaning, one at the edge, one guarded.
+        // As the pipeline stores a field result: one counted wire, one leaning, one at the edge, one guarded.
         await _harness.Store.SaveAnalysisAsync(new AnalysisRecord
         {
             FieldId = field.Id, Status = "done",
-            ResultsJson = """
-                {"wires":[{"id":0,"radiusNm":31.5,"vertical":true,"interior":true,"zoneNormalised":0.8},
-                          {"id":1,"radiusNm":30,"vertical":false,"interior":true,"zoneNormalised":0.7},
-                          {"id":2,"radiusNm":29,"vertical":true,"interior":false,"zoneNormalised":0.6},
-                          {"id":3,"radiusNm":28,"vertical":true,"interior":true,"zoneNormalised":null}]}
-                """,
+            ResultsJson = FieldResultJson.Write(new FieldResult
+            {
+                FieldName = "f.png", PixelSizeNm = 5, WidthNm = 5000, AnalysedHeightNm = 4000, Threshold = "invented", AnalysedAreaCm2 = 2e-7,
+                Wires =
+                [
+                    new FieldWire(0, 100, 100, 31.5, Vertical: true, Interior: true, ZoneNormalised: 0.8),
+                    new FieldWire(1, 200, 100, 30, Vertical: false, Interior: true, ZoneNormalised: 0.7),
+                    new FieldWire(2, 300, 100, 29, Vertical: true, Interior: false, ZoneNormalised: 0.6),
+                    new FieldWire(3, 400, 100, 28, Vertical: true, Interior: true, ZoneNormalised: null),
+                ],
+            }),
         }, CancellationToken.None);
         await _harness.Store.SaveModelFitAsync(new ModelFitRecord { Process = "nw-inv", Model = "radius", ParamsJson = """{"kind":"Linear","parameters":[{"value":20},{"value":22}],"count":1}""" },
             CancellationToken.None);
