@@ -2,7 +2,7 @@
 # The one command that passes the tests on a fresh machine:
 #   bash tests/run.sh            install what is missing, build, run every test tier, print the benchmarks
 #   bash tests/run.sh --no-bench skip the benchmark tier (quicker while developing)
-# Test tiers: unit and integration tests (xunit, with a real Mosquitto broker, SQLite, Python reference
+# Test tiers: unit and integration tests (xunit, with a real Mosquitto broker, SQLite, PostgreSQL, Python reference
 # libraries, headless Chromium where a test needs them), then the benchmarks, which print figures and ratios.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -16,8 +16,8 @@ for arg in "$@"; do
 done
 
 # Debian packages the tests use: an independent MQTT broker and clients, PDF text extraction, an independent
-# TIFF writer, the Python reference libraries (for /usr/bin/python3), a headless browser, fonts.
-debian_packages=(mosquitto mosquitto-clients poppler-utils imagemagick python3-scipy python3-skimage
+# TIFF writer, PostgreSQL (fleet store), the Python reference libraries (for /usr/bin/python3), a headless browser, fonts.
+debian_packages=(mosquitto mosquitto-clients postgresql poppler-utils imagemagick python3-scipy python3-skimage
   python3-shapely python3-opencv python3-pil chromium chromium-driver fonts-dejavu-core openssl)
 
 missing=()
@@ -35,8 +35,18 @@ if [ ${#missing[@]} -gt 0 ]; then
     exit 2
   fi
 fi
-# The Debian broker must not run as a system service here: tests start their own on free loopback ports.
-if command -v systemctl >/dev/null 2>&1; then systemctl stop mosquitto >/dev/null 2>&1 || true; fi
+# The Debian broker and PostgreSQL must not run as system services here: tests start their own on free loopback ports.
+if command -v systemctl >/dev/null 2>&1; then systemctl stop mosquitto postgresql >/dev/null 2>&1 || true; fi
+
+# One throw-away PostgreSQL cluster for the whole run (temporary data folder, free loopback port), stopped at exit.
+# Tests that need PostgreSQL read RUNWATCH_TEST_POSTGRES and create their own databases in it; a test that must
+# restart the server starts a cluster of its own the same way (tests/postgres-cluster.sh).
+pg_dir=$(mktemp -d /tmp/runwatch-test-pg-XXXXXX)
+trap 'bash tests/postgres-cluster.sh stop "$pg_dir"' EXIT
+echo "== PostgreSQL (temporary cluster in $pg_dir)"
+RUNWATCH_TEST_POSTGRES=$(bash tests/postgres-cluster.sh start "$pg_dir" | tail -1) \
+  || { echo "PostgreSQL could not be started (message above); the store and fleet tests need it, so the run stops here"; exit 2; }
+export RUNWATCH_TEST_POSTGRES
 
 export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
 export RUNWATCH_REFERENCE_PYTHON=/usr/bin/python3

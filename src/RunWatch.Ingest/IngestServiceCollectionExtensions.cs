@@ -9,6 +9,7 @@ using Polly;
 using RunWatch.Ingest.Alerts;
 using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Configuration;
+using RunWatch.Ingest.Fleet;
 using RunWatch.Ingest.Health;
 using RunWatch.Ingest.Mqtt;
 using RunWatch.Ingest.Pipeline;
@@ -56,12 +57,29 @@ public static partial class IngestServiceCollectionExtensions
             .ValidateErrorList(ChambersOptions.SectionName, o => o.Validate())
             .ValidateOnStart();
 
+        services.AddOptions<FleetOptions>()
+            .Bind(configuration.GetSection(FleetOptions.SectionName))
+            .ValidateDataAnnotations()
+            .Validate(o => !o.Enabled || configuration.GetSection(StorageOptions.SectionName).Get<StorageOptions>()?.UsesPostgres == true,
+                "Fleet:Enabled needs Storage:Provider=PostgreSql: the daemons of a fleet share one PostgreSQL store")
+            .Validate(o => !o.Enabled || configuration.GetSection(BrokerOptions.SectionName).GetValue(nameof(BrokerOptions.Mode), BrokerMode.Embedded) == BrokerMode.External,
+                "Fleet:Enabled needs Broker:Mode=External: the daemons of a fleet share one broker that outlives each of them")
+            .Validate(o => o.ClaimInterval > TimeSpan.Zero && o.LockKeepAlive >= TimeSpan.FromSeconds(1) && o.LockCommandTimeout >= TimeSpan.FromSeconds(1),
+                "Fleet: ClaimInterval must be positive, LockKeepAlive and LockCommandTimeout at least 1 s")
+            .Validate(o => o.ChamberClientId.Contains("{chamber}", StringComparison.Ordinal), "Fleet:ChamberClientId must contain {chamber}")
+            .ValidateOnStart();
+        bool fleet = configuration.GetSection(FleetOptions.SectionName).GetValue<bool>(nameof(FleetOptions.Enabled));
         services.TryAddSingleton<ChamberRegistryHolder>();
         services.TryAddSingleton<IChamberAlarmBands, ConfiguredAlarmBands>();
         services.TryAddSingleton<InboundQueue>();
         services.TryAddSingleton<IngestHealth>();
         services.TryAddSingleton(sp => new IngestMetrics(sp.GetRequiredService<CollectorRegistry>()));
         services.TryAddSingleton<MqttConnectionService>();
+        services.TryAddSingleton<FleetState>();
+        if (fleet)
+        {
+            services.TryAddSingleton<IMessageAcknowledger, FleetAcknowledger>();
+        }
         services.TryAddSingleton<IMessageAcknowledger>(sp => sp.GetRequiredService<MqttConnectionService>());
         services.TryAddSingleton<IMqttPublisher>(sp => sp.GetRequiredService<MqttConnectionService>());
         services.TryAddSingleton<IngestPipeline>();
@@ -104,6 +122,12 @@ public static partial class IngestServiceCollectionExtensions
             services.AddHostedService<EmbeddedBrokerService>();
         }
         services.AddHostedService(sp => sp.GetRequiredService<MqttConnectionService>());
+        if (fleet)
+        {
+            // Before the committer, so that it stops after it: the committer's last acks still find their sessions.
+            services.AddHostedService<ChamberOwnershipService>();
+            services.AddHealthChecks().AddCheck<FleetHealthCheck>("fleet");
+        }
         services.AddHostedService<IngestService>();
         services.AddHostedService<RunTrackingService>();
         services.AddHostedService(sp => sp.GetRequiredService<AlertDispatchService>());

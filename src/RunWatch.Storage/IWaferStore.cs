@@ -33,6 +33,23 @@ public interface IWaferStore
     /// <summary>Fields with the given status, oldest first.</summary>
     Task<IReadOnlyList<FieldRecord>> GetFieldsByStatusAsync(FieldStatus status, int maxCount, CancellationToken cancellationToken);
 
+    /// <summary>
+    /// Claims the oldest queued field that no worker holds, or whose claim ran out, for <paramref name="worker"/> until
+    /// <paramref name="now"/> + <paramref name="lease"/>; null when none is free. Daemons sharing one store each get a
+    /// different field (PostgreSQL: <c>FOR UPDATE SKIP LOCKED</c>), so a field is analysed once; the claim ends when
+    /// the field leaves <see cref="FieldStatus.Queued"/>, or by <see cref="ReleaseFieldClaimAsync"/>.
+    /// </summary>
+    Task<FieldRecord?> ClaimQueuedFieldAsync(string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken);
+
+    /// <summary>
+    /// Claims one queued field for <paramref name="worker"/> until <paramref name="now"/> + <paramref name="lease"/> if no
+    /// other worker holds it; false when it is held, or not queued any more. A field is analysed by whoever claims it.
+    /// </summary>
+    Task<bool> ClaimFieldAsync(long fieldId, string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken);
+
+    /// <summary>Gives a claimed field back to the queue at once (the worker stops before analysing it).</summary>
+    Task ReleaseFieldClaimAsync(long fieldId, string worker, CancellationToken cancellationToken);
+
     /// <summary>Stores an analysis and returns it with its id.</summary>
     Task<AnalysisRecord> SaveAnalysisAsync(AnalysisRecord analysis, CancellationToken cancellationToken);
 

@@ -8,8 +8,9 @@ public sealed class StorageOptions
     /// <summary>Configuration section name.</summary>
     public const string SectionName = "Storage";
 
-    /// <summary>Store provider. <value>Default <c>Sqlite</c>.</value> (PostgreSQL arrives in a later issue.)</summary>
+    /// <summary>Store provider: <c>Sqlite</c> (one box) or <c>PostgreSql</c> (a fleet of daemons sharing one database). <value>Default <c>Sqlite</c>.</value></summary>
     [Required]
+    [RegularExpression("^(?i:Sqlite|PostgreSql)$", ErrorMessage = "Storage:Provider must be Sqlite or PostgreSql")]
     public string Provider { get; set; } = "Sqlite";
 
     /// <summary>Folder for the database and other data, relative to the working directory unless absolute. <value>Default <c>data</c>.</value></summary>
@@ -44,6 +45,18 @@ public sealed class StorageOptions
     /// <summary>Payload bytes kept per dead letter. <value>Default 4096.</value></summary>
     [Range(0, 1_048_576)]
     public int DeadLetterPayloadBytes { get; set; } = 4096;
+
+    /// <summary>
+    /// Npgsql connection string of the PostgreSQL store (only with <c>Provider=PostgreSql</c>). Keep the password out of
+    /// configuration files: Npgsql reads <c>PGPASSWORD</c> or a <c>~/.pgpass</c> file when the string has none.
+    /// </summary>
+    public string? ConnectionString { get; set; }
+
+    /// <summary>How the PostgreSQL store writes sample batches. <value>Default <c>UnnestArrays</c> (measured fastest, docs/fleet.md).</value></summary>
+    public Postgres.PostgresSampleWrite PostgresSampleWrite { get; set; } = Postgres.PostgresSampleWrite.UnnestArrays;
+
+    /// <summary>True when <see cref="Provider"/> selects PostgreSQL.</summary>
+    public bool UsesPostgres => string.Equals(Provider, "PostgreSql", StringComparison.OrdinalIgnoreCase);
 
     /// <summary>Full path of the SQLite file from the two path options.</summary>
     public string DatabasePath => Path.GetFullPath(Path.Combine(DataDirectory, DatabaseFile));

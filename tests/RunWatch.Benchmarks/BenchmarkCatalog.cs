@@ -10,6 +10,8 @@ internal static class BenchmarkCatalog
         new ThermalBenchmark(),
         new IngestBenchmark(),
         new StoreWriteBenchmark(),
+        new PostgresWriteBenchmark(),
+        new FleetIngestBenchmark(),
         new DashboardBenchmark(),
     ];
 }

@@ -10,6 +10,7 @@ namespace RunWatch.Ingest.Alerts;
 internal sealed class AlertBook
 {
     private readonly Dictionary<string, AlertRecord> _current = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, DateTimeOffset> _replayHorizon = new(StringComparer.Ordinal);
 
     /// <summary>Alerts not back to normal, by key.</summary>
     public IReadOnlyDictionary<string, AlertRecord> Current => _current;
@@ -20,6 +21,27 @@ internal sealed class AlertBook
         {
             _current[alert.Key] = alert;
         }
+    }
+
+    /// <summary>
+    /// Replaces every alert of <paramref name="chamber"/> with <paramref name="active"/> (a takeover in fleet mode) and
+    /// remembers, per key, the last change the store holds (<paramref name="recent"/>, any state, normal included), so
+    /// that replayed signals up to it are not applied twice.
+    /// </summary>
+    public void Replace(string chamber, IEnumerable<AlertRecord> active, IEnumerable<AlertRecord> recent)
+    {
+        foreach (var alert in recent)
+        {
+            if (!_replayHorizon.TryGetValue(alert.Key, out var known) || alert.UpdatedAt > known)
+            {
+                _replayHorizon[alert.Key] = alert.UpdatedAt;
+            }
+        }
+        foreach (var key in _current.Where(kv => kv.Value.Chamber == chamber).Select(kv => kv.Key).ToList())
+        {
+            _current.Remove(key);
+        }
+        Load(active);
     }
 
     /// <summary>Replaces the stored copy (after a save gave it an id).</summary>
@@ -39,6 +61,12 @@ internal sealed class AlertBook
     public (AlertRecord Alert, string Change)? Apply(AlertSignal signal, string? user = null)
     {
         _current.TryGetValue(signal.Key, out var existing);
+        // A replayed signal (takeover) that the store already holds: the previous owner recorded this change, or a
+        // later one, already (its last change of the key is at or after the signal).
+        if (signal.Replayed && _replayHorizon.TryGetValue(signal.Key, out var known) && signal.At <= known)
+        {
+            return null;
+        }
         double? value = double.IsFinite(signal.Value) ? signal.Value : null;
         (AlertRecord, string)? result = signal.To switch
         {

@@ -22,6 +22,7 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
     private readonly ILogger _logger;
     private readonly AlertBook _book = new();
     private readonly Lock _bookGate = new();
+    private readonly SemaphoreSlim _saveGate = new(1, 1);
     private readonly Dictionary<string, AlertRecord> _unsaved = new(StringComparer.Ordinal);
     private readonly Dictionary<string, string> _pendingUser = new(StringComparer.Ordinal);
     private readonly Dictionary<string, DateTimeOffset> _lookForRun = new(StringComparer.Ordinal);
@@ -57,6 +58,23 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
             await _store.AppendAuditAsync(new AuditEntry(_timeProvider.GetUtcNow(), user, "alert-acknowledged", alertId.ToString(System.Globalization.CultureInfo.InvariantCulture), null), cancellationToken).ConfigureAwait(false);
         }
         return changed;
+    }
+
+    /// <summary>
+    /// Replaces the book's alerts of one chamber with the store's (fleet mode, at a takeover: the previous owner may
+    /// have raised, acknowledged or cleared them since this daemon last looked). Returns how many are active.
+    /// </summary>
+    public async Task<int> ReloadChamberAsync(string chamber, DateTimeOffset replayFrom, CancellationToken cancellationToken)
+    {
+        var active = (await _store.GetActiveAlertsAsync(cancellationToken).ConfigureAwait(false)).Where(a => a.Chamber == chamber).ToList();
+        var recent = (await _store.GetAlertHistoryAsync(replayFrom.AddDays(-1), DateTimeOffset.MaxValue, 10_000, cancellationToken).ConfigureAwait(false))
+            .Where(a => a.Chamber == chamber).ToList();
+        lock (_bookGate)
+        {
+            _book.Replace(chamber, active, recent.Concat(active));
+        }
+        _metrics.AlertsActive.Set(ActiveCount());
+        return active.Count;
     }
 
     public async Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, CancellationToken cancellationToken)
@@ -191,6 +209,21 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
     }
 
     private async Task<Dictionary<string, AlertRecord>> SaveUnsavedAsync(CancellationToken cancellationToken)
+    {
+        // One save pass at a time: the signal loop and the retry tick both call this, and two passes over the same
+        // new record (id 0) would insert it twice.
+        await _saveGate.WaitAsync(cancellationToken).ConfigureAwait(false);
+        try
+        {
+            return await SaveUnsavedOnceAsync(cancellationToken).ConfigureAwait(false);
+        }
+        finally
+        {
+            _saveGate.Release();
+        }
+    }
+
+    private async Task<Dictionary<string, AlertRecord>> SaveUnsavedOnceAsync(CancellationToken cancellationToken)
     {
         var saved = new Dictionary<string, AlertRecord>(StringComparer.Ordinal);
         KeyValuePair<string, AlertRecord>[] pending;

@@ -48,17 +48,43 @@ internal sealed class AlertEngine(ChamberRegistryHolder registry, TimeProvider t
                         continue;
                     }
                 }
-                var chamber = alarms.Chamber;
-                if (chamber.Setpoint?.ChannelId == s.ChannelId)
-                {
-                    alarms.ChannelSetpointC = chamber.GrowthTemperature?.Calibration.ToTrueC(s.Value) ?? s.Value;
-                }
-                else if (chamber.GrowthTemperature is { } temperature && temperature.ChannelId == s.ChannelId)
-                {
-                    alarms.Monitor.Observe(Seconds(s.TimestampUs), temperature.Calibration.ToTrueC(s.Value), alarms.SetpointC);
-                }
+                Observe(alarms, s);
             }
             DrainAll();
+        }
+    }
+
+    /// <summary>
+    /// Fleet mode, at a takeover: feeds a chamber's fresh monitors the samples the previous owner already stored (in
+    /// time order), so that an excursion it committed but died before recording is still raised, and one in progress
+    /// goes on from the right state. Its signals are marked <see cref="AlertSignal.Replayed"/>.
+    /// </summary>
+    public void Replay(long chamberId, IReadOnlyList<SampleRow> samples)
+    {
+        lock (_gate)
+        {
+            if (Get(chamberId) is not { } alarms)
+            {
+                return;
+            }
+            for (int i = 0; i < samples.Count; i++)
+            {
+                Observe(alarms, samples[i]);
+            }
+            Drain(alarms, replayed: true);
+        }
+    }
+
+    private static void Observe(ChamberAlarms alarms, in SampleRow s)
+    {
+        var chamber = alarms.Chamber;
+        if (chamber.Setpoint?.ChannelId == s.ChannelId)
+        {
+            alarms.ChannelSetpointC = chamber.GrowthTemperature?.Calibration.ToTrueC(s.Value) ?? s.Value;
+        }
+        else if (chamber.GrowthTemperature is { } temperature && temperature.ChannelId == s.ChannelId)
+        {
+            alarms.Monitor.Observe(Seconds(s.TimestampUs), temperature.Calibration.ToTrueC(s.Value), alarms.SetpointC);
         }
     }
 
@@ -99,6 +125,15 @@ internal sealed class AlertEngine(ChamberRegistryHolder registry, TimeProvider t
                 alarms.RunSetpointC = double.NaN;
                 Drain(alarms);
             }
+        }
+    }
+
+    /// <summary>Drops a chamber's live monitors (fleet mode: another daemon owns the chamber now), without signalling anything.</summary>
+    public void Forget(long chamberId)
+    {
+        lock (_gate)
+        {
+            _chambers.Remove(chamberId);
         }
     }
 
@@ -199,7 +234,7 @@ internal sealed class AlertEngine(ChamberRegistryHolder registry, TimeProvider t
         }
     }
 
-    private void Drain(ChamberAlarms alarms)
+    private void Drain(ChamberAlarms alarms, bool replayed = false)
     {
         if (alarms.Pending.Count == 0)
         {
@@ -212,7 +247,7 @@ internal sealed class AlertEngine(ChamberRegistryHolder registry, TimeProvider t
             string message = AlertKinds.Describe(t.Kind) + (double.IsFinite(t.ValueC)
                 ? string.Create(CultureInfo.InvariantCulture, $" ({t.ValueC:F1} °C, setpoint {alarms.SetpointC:F1} °C)")
                 : "");
-            _signals.Writer.TryWrite(new AlertSignal(chamber.Name + "/" + code, chamber.Name, chamber.Site, code, t.To, Instant(t.TimeS), t.ValueC, message));
+            _signals.Writer.TryWrite(new AlertSignal(chamber.Name + "/" + code, chamber.Name, chamber.Site, code, t.To, Instant(t.TimeS), t.ValueC, message, replayed));
         }
         alarms.Pending.Clear();
     }

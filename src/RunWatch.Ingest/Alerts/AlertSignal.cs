@@ -11,4 +11,8 @@ namespace RunWatch.Ingest.Alerts;
 /// <param name="At">When.</param>
 /// <param name="Value">The last reading (°C) or NaN.</param>
 /// <param name="Message">One line for people.</param>
-internal sealed record AlertSignal(string Key, string? Chamber, string? Site, string Kind, AlarmState To, DateTimeOffset At, double Value, string Message);
+/// <param name="Replayed">
+/// From samples already stored, replayed at a takeover in fleet mode (<see cref="AlertEngine.Replay"/>): applied only
+/// where the store does not already hold the change.
+/// </param>
+internal sealed record AlertSignal(string Key, string? Chamber, string? Site, string Kind, AlarmState To, DateTimeOffset At, double Value, string Message, bool Replayed = false);

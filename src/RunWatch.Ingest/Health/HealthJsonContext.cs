@@ -9,6 +9,7 @@ namespace RunWatch.Ingest.Health;
 [JsonSerializable(typeof(double))]
 [JsonSerializable(typeof(bool))]
 [JsonSerializable(typeof(DateTimeOffset))]
+[JsonSerializable(typeof(string[]))]
 internal sealed partial class HealthJsonContext : JsonSerializerContext
 {
 }

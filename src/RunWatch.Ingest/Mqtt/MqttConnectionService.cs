@@ -20,6 +20,7 @@ internal sealed class MqttConnectionService : BackgroundService, IMessageAcknowl
 {
     private readonly BrokerOptions _broker;
     private readonly IngestOptions _ingest;
+    private readonly bool _fleet;
     private readonly InboundQueue _queue;
     private readonly IngestHealth _health;
     private readonly IngestMetrics _metrics;
@@ -34,6 +35,7 @@ internal sealed class MqttConnectionService : BackgroundService, IMessageAcknowl
     public MqttConnectionService(
         IOptions<BrokerOptions> broker,
         IOptions<IngestOptions> ingest,
+        IOptions<FleetOptions> fleet,
         InboundQueue queue,
         IngestHealth health,
         IngestMetrics metrics,
@@ -42,6 +44,7 @@ internal sealed class MqttConnectionService : BackgroundService, IMessageAcknowl
     {
         _broker = broker.Value;
         _ingest = ingest.Value;
+        _fleet = fleet.Value.Enabled;
         _queue = queue;
         _health = health;
         _metrics = metrics;
@@ -199,6 +202,15 @@ internal sealed class MqttConnectionService : BackgroundService, IMessageAcknowl
         }
         Log.Connected(_logger, result.IsSessionPresent, result.ReceiveMaximum ?? 0);
 
+        if (_fleet)
+        {
+            // Fleet mode: chamber topics belong to the chamber sessions of whichever daemon owns each chamber; this
+            // connection only publishes the daemon's status and alerts.
+            await TryPublishAsync(StatusTopic, "online"u8.ToArray(), retain: true, cancellationToken).ConfigureAwait(false);
+            _health.SetBroker(BrokerConnectionState.Connected, _timeProvider.GetUtcNow(), null);
+            _metrics.BrokerConnected.Set(1);
+            return;
+        }
         var subscribe = new MqttClientSubscribeOptionsBuilder();
         string root = _ingest.TopicRoot;
         foreach (string filter in new[] { root + "/+/+/telemetry", root + "/+/+/ch/+", root + "/+/+/event" })

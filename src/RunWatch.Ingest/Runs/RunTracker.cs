@@ -77,6 +77,19 @@ internal sealed class RunTracker : ICommittedBatchObserver
         }
     }
 
+    /// <summary>
+    /// Drops a chamber's tracking without closing its run (fleet mode: another daemon now owns the chamber and
+    /// resumes the open run from the store).
+    /// </summary>
+    public void Forget(long chamberId)
+    {
+        lock (_gate)
+        {
+            _open.Remove(chamberId);
+            _lastSampleUs.Remove(chamberId);
+        }
+    }
+
     public void OnCommitted(IngestBatch batch, IReadOnlyList<ChamberEvent> events, DateTimeOffset committedAt)
     {
         var registry = _registry.Registry;

@@ -1,5 +1,7 @@
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Options;
+using RunWatch.Ingest.Configuration;
 using RunWatch.Ingest.Chambers;
 using RunWatch.Ingest.Pipeline;
 using RunWatch.Storage;
@@ -17,11 +19,16 @@ internal sealed class RunTrackingService(
     ChamberRegistryHolder registry,
     IngestMetrics metrics,
     TimeProvider timeProvider,
+    IOptions<FleetOptions> fleet,
     ILogger<RunTrackingService> logger) : BackgroundService
 {
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
-        tracker.Resume(await store.GetOpenRunsAsync(stoppingToken).ConfigureAwait(false));
+        // In fleet mode a daemon resumes only the runs of the chambers it takes (ChamberOwnershipService).
+        if (!fleet.Value.Enabled)
+        {
+            tracker.Resume(await store.GetOpenRunsAsync(stoppingToken).ConfigureAwait(false));
+        }
         var ticks = TickAsync(stoppingToken);
         try
         {

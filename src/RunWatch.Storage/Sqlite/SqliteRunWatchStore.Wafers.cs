@@ -149,6 +149,61 @@ public sealed partial class SqliteRunWatchStore : IWaferStore
         ReadAsync(connection => SelectFields(connection, "f.status = $key ORDER BY f.id", status.ToString(), maxCount), cancellationToken);
 
     /// <inheritdoc />
+    /// <remarks>SQLite has one writer, so the select and the update inside one write transaction cannot race.</remarks>
+    public Task<FieldRecord?> ClaimQueuedFieldAsync(string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(worker);
+        return WriteAsync(connection =>
+        {
+            using var transaction = connection.BeginTransaction();
+            using var claim = connection.CreateCommand();
+            claim.Transaction = transaction;
+            claim.CommandText = """
+                UPDATE fields SET claimed_by = $worker, claimed_until_us = $until
+                WHERE id = (SELECT id FROM fields WHERE status = 'Queued' AND (claimed_until_us IS NULL OR claimed_until_us <= $now) ORDER BY id LIMIT 1)
+                RETURNING id
+                """;
+            claim.Parameters.AddWithValue("$worker", worker);
+            claim.Parameters.AddWithValue("$now", UnixMicros.From(now));
+            claim.Parameters.AddWithValue("$until", UnixMicros.From(now + lease));
+            object? id = claim.ExecuteScalar();
+            FieldRecord? field = id is null or DBNull ? null : SelectField(connection, transaction, "f.id = $key", id);
+            transaction.Commit();
+            return field;
+        }, cancellationToken);
+    }
+
+    /// <inheritdoc />
+    public Task<bool> ClaimFieldAsync(long fieldId, string worker, DateTimeOffset now, TimeSpan lease, CancellationToken cancellationToken)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(worker);
+        return WriteAsync(connection =>
+        {
+            using var command = connection.CreateCommand();
+            command.CommandText = """
+                UPDATE fields SET claimed_by = $worker, claimed_until_us = $until
+                WHERE id = $id AND status = 'Queued' AND (claimed_until_us IS NULL OR claimed_until_us <= $now OR claimed_by = $worker)
+                """;
+            command.Parameters.AddWithValue("$id", fieldId);
+            command.Parameters.AddWithValue("$worker", worker);
+            command.Parameters.AddWithValue("$now", UnixMicros.From(now));
+            command.Parameters.AddWithValue("$until", UnixMicros.From(now + lease));
+            return command.ExecuteNonQuery() == 1;
+        }, cancellationToken);
+    }
+
+    /// <inheritdoc />
+    public Task ReleaseFieldClaimAsync(long fieldId, string worker, CancellationToken cancellationToken) =>
+        WriteAsync(connection =>
+        {
+            using var command = connection.CreateCommand();
+            command.CommandText = "UPDATE fields SET claimed_by = NULL, claimed_until_us = NULL WHERE id = $id AND claimed_by = $worker";
+            command.Parameters.AddWithValue("$id", fieldId);
+            command.Parameters.AddWithValue("$worker", worker);
+            return command.ExecuteNonQuery();
+        }, cancellationToken);
+
+    /// <inheritdoc />
     public Task<AnalysisRecord> SaveAnalysisAsync(AnalysisRecord analysis, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(analysis);

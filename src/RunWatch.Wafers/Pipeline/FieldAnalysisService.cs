@@ -24,6 +24,11 @@ public sealed class FieldAnalysisService(
     TimeProvider time,
     ILogger<FieldAnalysisService> logger) : BackgroundService
 {
+    // Who holds a field while it is analysed: daemons sharing one store (fleet mode) each claim a field before
+    // analysing it, so a field is analysed once; a claim of a daemon that died runs out after the lease.
+    private static readonly string Worker = Environment.MachineName + ":" + Environment.ProcessId.ToString(System.Globalization.CultureInfo.InvariantCulture);
+    private static readonly TimeSpan ClaimLease = TimeSpan.FromMinutes(15);
+
     /// <summary>Raised after a wafer's report was written (for the dashboard and the demo).</summary>
     public event Action<WaferReportOutcome>? ReportWritten;
 
@@ -66,6 +71,11 @@ public sealed class FieldAnalysisService(
         FieldRecord? field = await wafers.GetFieldAsync(fieldId, cancellationToken).ConfigureAwait(false);
         if (field is null || field.Status != FieldStatus.Queued || field.Wafer is null)
         {
+            return (false, null);
+        }
+        if (!await wafers.ClaimFieldAsync(field.Id, Worker, time.GetUtcNow(), ClaimLease, cancellationToken).ConfigureAwait(false))
+        {
+            // Another daemon of the fleet is analysing it.
             return (false, null);
         }
         RunRecord? run = await wafers.FindRunOfWaferAsync(field.Wafer, cancellationToken).ConfigureAwait(false);

@@ -7,7 +7,6 @@ using Microsoft.Extensions.Options;
 using RunWatch.Core.Qc;
 using RunWatch.Wafers.Intake;
 using RunWatch.Storage;
-using RunWatch.Storage.Sqlite;
 
 namespace RunWatch.Wafers.Pipeline;
 
@@ -16,7 +15,7 @@ public static class WaferPipelineServiceCollectionExtensions
 {
     /// <summary>
     /// Binds and validates <see cref="IntakeOptions"/>, <see cref="WaferPipelineOptions"/> and <see cref="QcOptions"/>,
-    /// registers <see cref="IWaferStore"/> over the SQLite store, report writing (judged by the store's
+    /// uses the <see cref="IWaferStore"/> that <c>AddRunWatchStorage</c> registered (SQLite or PostgreSQL), report writing (judged by the store's
     /// <see cref="QcSpecificationCatalog"/>) and process calibration, and adds the intake and analysis hosted services.
     /// Call after the store is registered.
     /// </summary>
@@ -37,7 +36,6 @@ public static class WaferPipelineServiceCollectionExtensions
             .ValidateErrorList(QcOptions.SectionName, o => o.Validate())
             .ValidateOnStart();
         services.TryAddSingleton(TimeProvider.System);
-        services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
         services.TryAddSingleton(sp => new FieldAnalysisQueue(sp.GetRequiredService<IOptions<WaferPipelineOptions>>().Value.QueueCapacity));
         services.TryAddSingleton(sp => new FieldIntake(
             sp.GetRequiredService<IWaferStore>(),

@@ -1,37 +1,36 @@
-using Microsoft.Data.Sqlite;
-using Microsoft.Extensions.Options;
 using RunWatch.Core.Qc;
-using RunWatch.Storage.Sqlite;
 
-namespace RunWatch.Storage.Tests.Sqlite;
+namespace RunWatch.Storage.Tests.Contract;
 
-/// <summary>QC specifications, reminder settings and audit reads on a real SQLite file, across a reopen of the file.</summary>
-public sealed class SqliteSettingsStoreTests
+/// <summary>
+/// The <see cref="ISettingsStore"/> contract and audit reads, across a reopen of the store: every test body runs
+/// against SQLite and PostgreSQL.
+/// </summary>
+public sealed class SettingsStoreContractTests
 {
     private static readonly DateTimeOffset T0 = new(2026, 3, 4, 10, 0, 0, TimeSpan.Zero);
 
     private static QcSpecification Spec(double target, double tolerance) =>
         new() { TargetMeanRadiusNm = target, MeanRadiusToleranceNm = tolerance, MaxRadiusCv = 0.3, WarnRadiusCv = 0.2, MinWireCount = 40, MissingValueOutcome = QcOutcome.Fail };
 
-    [Fact]
-    public async Task SaveQcSpecificationAsync_AfterReopen_ReadsEditedValueAndAudit()
+    [Theory]
+    [AllStores]
+    public async Task SaveQcSpecificationAsync_AfterReopen_ReadsEditedValueAndAudit(StoreKind kind)
     {
-        using var db = new TempDatabase();
+        await using var db = await StoreUnderTest.CreateAsync(kind);
         await db.Store.MigrateAsync(CancellationToken.None);
-        int seeded = await db.Store.SeedQcSpecificationsAsync(new Dictionary<string, QcSpecification> { ["nw-a"] = Spec(45, 10), [""] = Spec(50, 20) },
+        int seeded = await db.Settings.SeedQcSpecificationsAsync(new Dictionary<string, QcSpecification> { ["nw-a"] = Spec(45, 10), [""] = Spec(50, 20) },
             "configuration", T0, CancellationToken.None);
-        await db.Store.SaveQcSpecificationAsync("nw-a", Spec(40, 4), "ada-admin",
+        await db.Settings.SaveQcSpecificationAsync("nw-a", Spec(40, 4), "ada-admin",
             new AuditEntry(T0.AddMinutes(1), "ada-admin", "spec edited", "spec nw-a", AuditDetail.Json("target 45 → 40 nm")), null, CancellationToken.None);
 
         // A second store on the same file, as after a restart.
-        db.Store.Dispose();
-        SqliteConnection.ClearAllPools();
-        using var reopened = new SqliteRunWatchStore(Options.Create(db.Options), TimeProvider.System);
-        await reopened.MigrateAsync(CancellationToken.None);
-        int seededAgain = await reopened.SeedQcSpecificationsAsync(new Dictionary<string, QcSpecification> { ["nw-a"] = Spec(45, 10) },
+        await db.ReopenAsync();
+        await db.Store.MigrateAsync(CancellationToken.None);
+        int seededAgain = await db.Settings.SeedQcSpecificationsAsync(new Dictionary<string, QcSpecification> { ["nw-a"] = Spec(45, 10) },
             "configuration", T0.AddMinutes(2), CancellationToken.None);
-        var specs = await reopened.GetQcSpecificationsAsync(CancellationToken.None);
-        var audit = await reopened.GetAuditAsync(10, CancellationToken.None);
+        var specs = await db.Settings.GetQcSpecificationsAsync(CancellationToken.None);
+        var audit = await db.Store.GetAuditAsync(10, CancellationToken.None);
 
         Assert.Equal(2, seeded);
         Assert.Equal(0, seededAgain); // seeding never overwrites a stored value
@@ -51,59 +50,60 @@ public sealed class SqliteSettingsStoreTests
         Assert.All(audit.Skip(1), a => Assert.Equal("spec seeded", a.Action));
     }
 
-    [Fact]
-    public async Task SaveQcSpecificationAsync_UnknownRecipe_ThrowsAndWritesNoAudit()
+    [Theory]
+    [AllStores]
+    public async Task SaveQcSpecificationAsync_UnknownRecipe_ThrowsAndWritesNoAudit(StoreKind kind)
     {
-        using var db = new TempDatabase();
+        await using var db = await StoreUnderTest.CreateAsync(kind);
         await db.Store.MigrateAsync(CancellationToken.None);
 
-        await Assert.ThrowsAsync<KeyNotFoundException>(() => db.Store.SaveQcSpecificationAsync("nope", Spec(40, 4), "ada-admin",
+        await Assert.ThrowsAsync<KeyNotFoundException>(() => db.Settings.SaveQcSpecificationAsync("nope", Spec(40, 4), "ada-admin",
             new AuditEntry(T0, "ada-admin", "spec edited", "spec nope", null), null, CancellationToken.None));
 
-        Assert.Equal(0, db.Count("SELECT COUNT(*) FROM audit_entries"));
-        Assert.Equal(0, db.Count("SELECT COUNT(*) FROM qc_specifications"));
+        Assert.Equal(0, await db.CountAsync("SELECT COUNT(*) FROM audit_entries"));
+        Assert.Equal(0, await db.CountAsync("SELECT COUNT(*) FROM qc_specifications"));
     }
 
-    [Fact]
-    public async Task SaveQcSpecificationAsync_RowChangedSinceRead_RefusedAndNothingWritten()
+    [Theory]
+    [AllStores]
+    public async Task SaveQcSpecificationAsync_RowChangedSinceRead_RefusedAndNothingWritten(StoreKind kind)
     {
-        using var db = new TempDatabase();
+        await using var db = await StoreUnderTest.CreateAsync(kind);
         await db.Store.MigrateAsync(CancellationToken.None);
-        await db.Store.SeedQcSpecificationsAsync(new Dictionary<string, QcSpecification> { ["nw-a"] = Spec(45, 10) }, "configuration", T0, CancellationToken.None);
-        DateTimeOffset read = (await db.Store.GetQcSpecificationsAsync(CancellationToken.None))[0].UpdatedAt;
+        await db.Settings.SeedQcSpecificationsAsync(new Dictionary<string, QcSpecification> { ["nw-a"] = Spec(45, 10) }, "configuration", T0, CancellationToken.None);
+        DateTimeOffset read = (await db.Settings.GetQcSpecificationsAsync(CancellationToken.None))[0].UpdatedAt;
         // Another admin saves first.
-        await db.Store.SaveQcSpecificationAsync("nw-a", Spec(40, 4), "bea-admin", new AuditEntry(T0.AddMinutes(1), "bea-admin", "spec edited", "spec nw-a", null), read,
+        await db.Settings.SaveQcSpecificationAsync("nw-a", Spec(40, 4), "bea-admin", new AuditEntry(T0.AddMinutes(1), "bea-admin", "spec edited", "spec nw-a", null), read,
             CancellationToken.None);
 
-        var ex = await Assert.ThrowsAsync<InvalidOperationException>(() => db.Store.SaveQcSpecificationAsync("nw-a", Spec(50, 2), "ada-admin",
+        var ex = await Assert.ThrowsAsync<InvalidOperationException>(() => db.Settings.SaveQcSpecificationAsync("nw-a", Spec(50, 2), "ada-admin",
             new AuditEntry(T0.AddMinutes(2), "ada-admin", "spec edited", "spec nw-a", null), read, CancellationToken.None));
 
         Assert.Contains("changed meanwhile by bea-admin", ex.Message, StringComparison.Ordinal);
-        Assert.Equal(40, (await db.Store.GetQcSpecificationsAsync(CancellationToken.None))[0].Specification.TargetMeanRadiusNm);
-        Assert.Equal(1, db.Count("SELECT COUNT(*) FROM audit_entries WHERE action = 'spec edited'"));
+        Assert.Equal(40, (await db.Settings.GetQcSpecificationsAsync(CancellationToken.None))[0].Specification.TargetMeanRadiusNm);
+        Assert.Equal(1, await db.CountAsync("SELECT COUNT(*) FROM audit_entries WHERE action = 'spec edited'"));
     }
 
-    [Fact]
-    public async Task SaveReminderSettingAsync_AfterReopen_ReadsEditedThresholdAndAudit()
+    [Theory]
+    [AllStores]
+    public async Task SaveReminderSettingAsync_AfterReopen_ReadsEditedThresholdAndAudit(StoreKind kind)
     {
-        using var db = new TempDatabase();
+        await using var db = await StoreUnderTest.CreateAsync(kind);
         await db.Store.MigrateAsync(CancellationToken.None);
         var defaults = new List<ReminderSetting>
         {
             new("substrate-above-vent-limit", 200, "°C", TimeSpan.Zero, T0, "configuration"),
             new("telemetry-stale", 0, "", TimeSpan.FromSeconds(30), T0, "configuration"),
         };
-        int seeded = await db.Store.SeedReminderSettingsAsync(defaults, CancellationToken.None);
-        await db.Store.SaveReminderSettingAsync(defaults[0] with { Threshold = 150, UpdatedAt = T0.AddMinutes(5), UpdatedBy = "ada-admin" },
+        int seeded = await db.Settings.SeedReminderSettingsAsync(defaults, CancellationToken.None);
+        await db.Settings.SaveReminderSettingAsync(defaults[0] with { Threshold = 150, UpdatedAt = T0.AddMinutes(5), UpdatedBy = "ada-admin" },
             new AuditEntry(T0.AddMinutes(5), "ada-admin", "reminder edited", "substrate-above-vent-limit", AuditDetail.Json("threshold 200 → 150 °C")),
             CancellationToken.None);
 
-        db.Store.Dispose();
-        SqliteConnection.ClearAllPools();
-        using var reopened = new SqliteRunWatchStore(Options.Create(db.Options), TimeProvider.System);
-        int seededAgain = await reopened.SeedReminderSettingsAsync(defaults, CancellationToken.None);
-        var settings = await reopened.GetReminderSettingsAsync(CancellationToken.None);
-        var audit = await reopened.GetAuditAsync(10, CancellationToken.None);
+        await db.ReopenAsync();
+        int seededAgain = await db.Settings.SeedReminderSettingsAsync(defaults, CancellationToken.None);
+        var settings = await db.Settings.GetReminderSettingsAsync(CancellationToken.None);
+        var audit = await db.Store.GetAuditAsync(10, CancellationToken.None);
 
         Assert.Equal(2, seeded);
         Assert.Equal(0, seededAgain);
@@ -113,10 +113,11 @@ public sealed class SqliteSettingsStoreTests
         Assert.Equal("reminder edited", Assert.Single(audit).Action);
     }
 
-    [Fact]
-    public async Task GetAuditAsync_ManyEntries_NewestFirstAndBounded()
+    [Theory]
+    [AllStores]
+    public async Task GetAuditAsync_ManyEntries_NewestFirstAndBounded(StoreKind kind)
     {
-        using var db = new TempDatabase();
+        await using var db = await StoreUnderTest.CreateAsync(kind);
         await db.Store.MigrateAsync(CancellationToken.None);
         for (int i = 0; i < 5; i++)
         {
