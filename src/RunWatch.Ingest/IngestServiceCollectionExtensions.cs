@@ -2,6 +2,7 @@ using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using Prometheus;
 using Microsoft.Extensions.Http.Resilience;
@@ -103,6 +104,8 @@ public static partial class IngestServiceCollectionExtensions
         services.AddSingleton<IRunLifecycleListener>(sp => sp.GetRequiredService<AlertEngine>());
         services.TryAddSingleton<RunTracker>();
         services.TryAddSingleton<IRunDiffusivity, ConfiguredRunDiffusivity>();
+        services.TryAddSingleton<IRunDiffusionModels>(sp => new StoredRunDiffusionModels(sp.GetService<IWaferStore>(),
+            sp.GetRequiredService<ILogger<StoredRunDiffusionModels>>()));
         services.TryAddSingleton<RunEvaluator>();
         services.TryAddSingleton<AlertDispatchService>();
         services.TryAddSingleton<IAlertCommands>(sp => sp.GetRequiredService<AlertDispatchService>());

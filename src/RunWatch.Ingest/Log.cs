@@ -79,4 +79,10 @@ internal static partial class Log
 
     [LoggerMessage(EventId = 2500, Level = LogLevel.Warning, Message = "Retention step failed; will retry at the next interval")]
     public static partial void RetentionFailed(ILogger logger, Exception exception);
+
+    [LoggerMessage(EventId = 2610, Level = LogLevel.Warning, Message = "Accepted diffusion model {Id} of process {Process} cannot be used ({Reason}); skipped")]
+    public static partial void DiffusionModelSkipped(ILogger logger, long id, string process, string reason);
+
+    [LoggerMessage(EventId = 2611, Level = LogLevel.Warning, Message = "Run {Run}: the diffusion-model run-end estimate failed ({Reason})")]
+    public static partial void DiffusionEstimateFailed(ILogger logger, string run, string reason);
 }

@@ -17,4 +17,11 @@ public enum AlertState
 
     /// <summary>Shelved by an operator: kept out of the active list until unshelved or the shelf time ends.</summary>
     Shelved,
+
+    /// <summary>
+    /// Condition active in a process state where the alarm is suppressed by design (a deviation on a setpoint ramp):
+    /// recorded for the record, never raised to operators or sinks, nothing to acknowledge. Not an operator's choice
+    /// (that is <see cref="Shelved"/>).
+    /// </summary>
+    Suppressed,
 }

@@ -14,4 +14,19 @@ public enum ChannelRole
 
     /// <summary>The shutter that opens and closes the growth window (open when at or above the chamber's threshold).</summary>
     GrowthShutter,
+
+    /// <summary>The arsenic (group-V) source cell temperature (°C); read by the "arsenic source hot" reminder.</summary>
+    ArsenicSourceTemperature,
+
+    /// <summary>A hydride source gas flow (sccm); read by the "hydride gas flowing" reminder.</summary>
+    HydrideFlow,
+
+    /// <summary>The cryopanel liquid-nitrogen fill flag (on at ≥ 0.5); read by the "cryopanel being filled" reminder.</summary>
+    CryopanelFill,
+
+    /// <summary>The bake-out flag (on at ≥ 0.5); read by the "bake-out running" reminder.</summary>
+    Bakeout,
+
+    /// <summary>The electron gun's high-voltage flag (on at ≥ 0.5); read by the "high voltage on" reminder.</summary>
+    ElectronGunHighVoltage,
 }

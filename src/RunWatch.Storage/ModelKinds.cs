@@ -14,4 +14,10 @@ public static class ModelKinds
 
     /// <summary>A process's Arrhenius calibration (Ea, D0).</summary>
     public const string Arrhenius = "arrhenius";
+
+    /// <summary>
+    /// A process's diffusion radius model (λ₀², E_λ, κ, r₀ with intervals, and the process's wire density); its
+    /// parameters are Core <c>DiffusionModelParams</c>. Once accepted, run-end evaluations use it.
+    /// </summary>
+    public const string Diffusion = "diffusion";
 }

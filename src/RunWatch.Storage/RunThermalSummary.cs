@@ -39,4 +39,10 @@ public sealed record RunThermalSummary(double ConventionFactor, double IntegralC
             ? new GrowthWindow(start, end)
             : new GrowthWindow(0, whole);
     }
+
+    /// <summary>
+    /// The run-end figures of the process's accepted diffusion radius model (<see cref="ModelKinds.Diffusion"/>);
+    /// null when the process has no accepted diffusion model (the figures above are then the only ones).
+    /// </summary>
+    public RunDiffusionFigures? Diffusion { get; init; }
 }

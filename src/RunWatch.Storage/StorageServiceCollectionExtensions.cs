@@ -39,6 +39,7 @@ public static class StorageServiceCollectionExtensions
             services.TryAddSingleton<IRunWatchStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
+            services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
         }
         else
         {
@@ -46,6 +47,7 @@ public static class StorageServiceCollectionExtensions
             services.TryAddSingleton<IRunWatchStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+            services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
         }
         services.TryAddSingleton<QcSpecificationCatalog>();
         return services;

@@ -12,4 +12,5 @@ namespace RunWatch.Storage;
 /// <param name="Statistics">Wire statistics of the wafer, null when too few wires.</param>
 /// <param name="Prediction">Expected radius distribution from L_eff, null when it could not be made.</param>
 /// <param name="Verdict">The QC verdict with every rule.</param>
-public sealed record WaferReportDigest(WireStatistics? Statistics, RadiusPrediction? Prediction, QcVerdict? Verdict);
+/// <param name="Agreement">Predicted against measured radius per wire, null when not compared (older digests too).</param>
+public sealed record WaferReportDigest(WireStatistics? Statistics, RadiusPrediction? Prediction, QcVerdict? Verdict, WaferAgreementDigest? Agreement = null);

@@ -45,6 +45,13 @@ public sealed class DashboardOptions
     /// </summary>
     public Dictionary<string, double> ReminderThresholds { get; set; } = new(StringComparer.Ordinal);
 
+    /// <summary>
+    /// A channel a reminder reads whose latest sample is older than this makes the reminder "not watched on this
+    /// chamber" (a channel that publishes only on change must also publish periodically to stay watched).
+    /// </summary>
+    /// <value>60 s.</value>
+    public TimeSpan ReminderChannelStaleAfter { get; set; } = TimeSpan.FromSeconds(60);
+
     /// <summary>Longest shelving an engineer may choose.</summary>
     /// <value>24 hours.</value>
     public TimeSpan MaxShelveDuration { get; set; } = TimeSpan.FromHours(24);

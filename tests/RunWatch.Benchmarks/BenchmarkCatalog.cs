@@ -7,6 +7,8 @@ internal static class BenchmarkCatalog
     [
         new ImagingBenchmark(),
         new CaptureZoneBenchmark(),
+        new DiffusionSolverBenchmark(),
+        new ModelPredictBenchmark(),
         new ThermalBenchmark(),
         new IngestBenchmark(),
         new StoreWriteBenchmark(),

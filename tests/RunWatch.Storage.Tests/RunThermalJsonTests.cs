@@ -17,7 +17,7 @@ public sealed class RunThermalJsonTests
         var summary = new RunThermalSummary(4, 1.25e-9, 590, 10, 600, 1, false, 0.0123, 601, true, null);
         RunExcursionRecord[] excursions =
         [
-            new(T0.AddSeconds(5), T0.AddSeconds(8), 3, -21.5, 578.5, ExcursionSeverity.Alarm, 0, Closed: true, InGrowthWindow: false),
+            new(T0.AddSeconds(5), T0.AddSeconds(8), 3, -21.5, 578.5, ExcursionSeverity.Alarm, 0, Closed: true, InGrowthWindow: false, SuppressedByDesign: true),
             new(T0.AddSeconds(100), T0.AddSeconds(130), 30, 7.25, 607.25, ExcursionSeverity.Warning, 1.5, Closed: false, InGrowthWindow: true),
         ];
 
@@ -31,6 +31,16 @@ public sealed class RunThermalJsonTests
         Assert.Equal(excursions, back.Excursions);
         Assert.Equal(4, RunThermalSummary.ConventionFactorOf(back));
         Assert.Equal(new GrowthWindow(10, 600), RunThermalSummary.GrowthWindowOf(back));
+    }
+
+    [Fact]
+    public void ReadExcursions_TextWrittenBeforeTheSuppressionFlag_ReadsAsNotSuppressed()
+    {
+        const string Stored = """[{"start":"2026-03-04T10:03:21Z","end":"2026-03-04T10:03:49Z","durationS":28,"peakDeviationK":12,"peakValueC":612,"severity":"Warning","lengthChangeNm":3.1,"closed":true,"inGrowthWindow":true}]""";
+
+        var excursion = Assert.Single(RunThermalJson.ReadExcursions(Stored)!);
+
+        Assert.False(excursion.SuppressedByDesign);
     }
 
     [Fact]

@@ -17,4 +17,11 @@ public enum AlarmState
 
     /// <summary>Suppressed by an operator until an expiry time; the condition is still tracked.</summary>
     Shelved = 4,
+
+    /// <summary>
+    /// Condition active in a process state where the alarm is suppressed by design (state-based alarming, e.g. a
+    /// deviation during a setpoint ramp): recorded, never raised, nothing to acknowledge. Distinct from
+    /// <see cref="Shelved"/>, which is an operator's choice.
+    /// </summary>
+    SuppressedByDesign = 5,
 }

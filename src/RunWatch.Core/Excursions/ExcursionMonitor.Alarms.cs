@@ -40,7 +40,7 @@ public sealed partial class ExcursionMonitor
         {
             return;
         }
-        Move(kind, slot.Condition ? AlarmState.ActiveUnacknowledged : AlarmState.Normal, nowS);
+        Move(kind, !slot.Condition ? AlarmState.Normal : IsSuppressed(kind) ? AlarmState.SuppressedByDesign : AlarmState.ActiveUnacknowledged, nowS);
     }
 
     /// <summary>When an alarm's shelve expires (NaN when not shelved).</summary>
@@ -78,7 +78,8 @@ public sealed partial class ExcursionMonitor
         AlarmState to = (slot.State, active) switch
         {
             (AlarmState.Shelved, _) => AlarmState.Shelved,
-            (AlarmState.Normal, true) => AlarmState.ActiveUnacknowledged,
+            (AlarmState.Normal, true) => IsSuppressed(kind) ? AlarmState.SuppressedByDesign : AlarmState.ActiveUnacknowledged,
+            (AlarmState.SuppressedByDesign, false) => AlarmState.Normal,
             (AlarmState.ReturnedToNormalUnacknowledged, true) => AlarmState.ActiveUnacknowledged,
             (AlarmState.ActiveUnacknowledged, false) => AlarmState.ReturnedToNormalUnacknowledged,
             (AlarmState.ActiveAcknowledged, false) => AlarmState.Normal,

@@ -7,10 +7,12 @@ public sealed partial class ExcursionMonitor
 {
     private void CheckDeviation(double timeS, double valueC, double setpointC)
     {
+        UpdateRecipeState(timeS, valueC, setpointC);
         if (!double.IsFinite(setpointC))
         {
             CloseOpen(timeS, closed: false);
             ResetDeviation(timeS);
+            ReleaseSuppressed(timeS);
             return;
         }
         double deviation = valueC - setpointC;
@@ -25,7 +27,10 @@ public sealed partial class ExcursionMonitor
 
         if (inExcursion && !_open.IsOpen)
         {
-            _open = new OpenExcursion { IsOpen = true, StartS = timeS, PeakDeviationK = deviation, PeakTimeS = timeS, PeakValueC = valueC };
+            _open = new OpenExcursion
+            {
+                IsOpen = true, StartS = timeS, PeakDeviationK = deviation, PeakTimeS = timeS, PeakValueC = valueC, Suppressed = _deviationSuppressed,
+            };
         }
         if (_open.IsOpen)
         {
@@ -44,6 +49,11 @@ public sealed partial class ExcursionMonitor
             {
                 _open.Qualified = true;
             }
+            if (inExcursion && !_deviationSuppressed)
+            {
+                // Any part of it outside a suppressing state makes it an alarm-worthy excursion.
+                _open.Suppressed = false;
+            }
         }
         if (warningChanged)
         {
@@ -55,6 +65,7 @@ public sealed partial class ExcursionMonitor
             CloseOpen(timeS, closed: true);
         }
         _lastInExcursion = inExcursion;
+        ReleaseSuppressed(timeS);
     }
 
     // ∫D dt actual minus ∫D dt with excursion samples replaced by their setpoint, for the segment ending now.
@@ -91,7 +102,8 @@ public sealed partial class ExcursionMonitor
                 _open.PeakValueC,
                 _open.Severity,
                 _hasDiffusivity ? _open.ExcessIntegralCmSq : double.NaN,
-                closed);
+                closed,
+                _open.Suppressed);
             _observer.OnExcursionEnded(in summary);
         }
         _open = default;
@@ -116,5 +128,8 @@ public sealed partial class ExcursionMonitor
         public double PeakValueC;
         public ExcursionSeverity Severity;
         public double ExcessIntegralCmSq;
+
+        // True while every sample of it fell in a state where deviation alarms are suppressed by design.
+        public bool Suppressed;
     }
 }

@@ -6,7 +6,8 @@ namespace RunWatch.Core.Excursions;
 /// Streaming excursion detection for one channel, fed sample by sample (true °C, times in seconds on any clock that
 /// never goes backwards). Watches the warning and alarm bands around the setpoint (minimum duration, hysteresis),
 /// absolute high/low limits, the rate of change, stale data and flatline, and keeps an ISA-18.2 alarm state per
-/// condition. Allocates nothing per sample. Not thread-safe: feed it from one thread.
+/// condition. Deviation alarms follow the configured state-based rule (<see cref="DeviationAlarmRule"/>): on a ramp
+/// towards a new setpoint they are suppressed by design. Allocates nothing per sample. Not thread-safe: feed it from one thread.
 /// </summary>
 public sealed partial class ExcursionMonitor
 {
@@ -28,6 +29,9 @@ public sealed partial class ExcursionMonitor
     private readonly double _flatlineS;
     private readonly double _flatlineEpsilonK;
     private readonly double _maxGapS;
+    private readonly DeviationAlarmRule _rule;
+    private readonly double _setpointChangeK;
+    private readonly double _rampTimeoutS;
     private readonly AlarmSlot[] _alarms;
 
     private BandDetector _warning;
@@ -73,6 +77,9 @@ public sealed partial class ExcursionMonitor
         _flatlineS = options.FlatlineWindow?.TotalSeconds ?? double.PositiveInfinity;
         _flatlineEpsilonK = options.FlatlineEpsilonK;
         _maxGapS = options.MaxGap.TotalSeconds;
+        _rule = options.DeviationAlarming;
+        _setpointChangeK = options.SetpointChangeK;
+        _rampTimeoutS = options.RampTimeout?.TotalSeconds ?? double.PositiveInfinity;
         _alarms = new AlarmSlot[KindCount];
     }
 

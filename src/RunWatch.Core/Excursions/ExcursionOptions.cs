@@ -48,6 +48,18 @@ public sealed class ExcursionOptions
     /// <value>Default 10 s.</value>
     public TimeSpan MaxGap { get; set; } = TimeSpan.FromSeconds(10);
 
+    /// <summary>When deviation alarms may be raised (state-based alarming); see <see cref="DeviationAlarmRule"/>.</summary>
+    /// <value>Default <see cref="DeviationAlarmRule.HoldAndGrowth"/>: no deviation alarm while heating or cooling towards a new setpoint.</value>
+    public DeviationAlarmRule DeviationAlarming { get; set; } = DeviationAlarmRule.HoldAndGrowth;
+
+    /// <summary>A setpoint move larger than this (from the last setpoint a ramp started at) starts a ramp, K.</summary>
+    /// <value>Default 0.5 K.</value>
+    public double SetpointChangeK { get; set; } = 0.5;
+
+    /// <summary>Longest a ramp may last after the setpoint last moved before deviation alarms apply anyway; null: no limit.</summary>
+    /// <value>Default 30 min.</value>
+    public TimeSpan? RampTimeout { get; set; } = TimeSpan.FromMinutes(30);
+
     /// <summary>Returns the problems with these options; empty when valid.</summary>
     public IReadOnlyList<string> Validate()
     {
@@ -99,6 +111,18 @@ public sealed class ExcursionOptions
         if (!(FlatlineEpsilonK >= 0))
         {
             errors.Add($"FlatlineEpsilonK must not be negative (got {FlatlineEpsilonK}).");
+        }
+        if (!(SetpointChangeK > 0) || !double.IsFinite(SetpointChangeK))
+        {
+            errors.Add($"SetpointChangeK must be positive (got {SetpointChangeK}).");
+        }
+        if (RampTimeout is { } ramp && ramp <= TimeSpan.Zero)
+        {
+            errors.Add("RampTimeout must be positive.");
+        }
+        if (!Enum.IsDefined(DeviationAlarming))
+        {
+            errors.Add($"DeviationAlarming must be Always or HoldAndGrowth (got {DeviationAlarming}).");
         }
         if (MaxGap <= TimeSpan.Zero)
         {

@@ -17,6 +17,10 @@ namespace RunWatch.Core.Excursions;
 /// (NaN when the monitor has no diffusivity).
 /// </param>
 /// <param name="Closed">False when the data ended (or the run ended) while the excursion was still open.</param>
+/// <param name="SuppressedByDesign">
+/// True when the whole excursion fell in a state where deviation alarms are suppressed by design (a ramp towards a
+/// new setpoint): kept for the record, not counted as an alarm-worthy excursion.
+/// </param>
 public readonly record struct ExcursionSummary(
     double StartS,
     double EndS,
@@ -25,7 +29,8 @@ public readonly record struct ExcursionSummary(
     double PeakValueC,
     ExcursionSeverity Severity,
     double ExcessIntegralCmSq,
-    bool Closed)
+    bool Closed,
+    bool SuppressedByDesign = false)
 {
     /// <summary>Duration in s.</summary>
     public double DurationS => EndS - StartS;

@@ -36,14 +36,16 @@ public static class RunThermalEvaluator
 
         var collector = new Collector();
         var monitor = new ExcursionMonitor(input.Excursions, input.Diffusivity, collector);
+        GrowthWindow window = input.Window;
         monitor.BeginRun(times[0]);
         for (int i = 0; i < times.Length; i++)
         {
+            // As live: the growth window is the Growth state, where deviation alarms are never suppressed by design.
+            monitor.SetGrowth(times[i] >= window.StartS && times[i] < window.EndS, times[i]);
             monitor.Observe(times[i], trueC[i], input.SetpointsC[i]);
         }
         monitor.EndRun(times[^1]);
 
-        GrowthWindow window = input.Window;
         double c = input.Length.ConventionFactor;
         double maxGapS = input.Excursions.MaxGap.TotalSeconds;
         var effects = new List<RunExcursionEffect>(collector.Excursions.Count);

@@ -6,7 +6,7 @@ namespace RunWatch.Core.Safety;
 /// <param name="Message">What to keep in mind while the condition holds.</param>
 /// <param name="Hazard">Hazard class, shown as a label.</param>
 /// <param name="Kind">The condition tested.</param>
-/// <param name="Channel">Channel name for channel conditions; ignored for <see cref="ReminderConditionKind.TelemetryStale"/>.</param>
+/// <param name="Role">The channel role read by channel conditions (each chamber maps it to one of its channels); <see cref="ReminderChannelRole.None"/> for <see cref="ReminderConditionKind.TelemetryStale"/>.</param>
 /// <param name="Threshold">Threshold in <paramref name="Unit"/> for above/below conditions.</param>
 /// <param name="Unit">Unit of the channel and threshold, for example "°C".</param>
 /// <param name="Window">Staleness limit, or how long after a run's end the rule applies.</param>
@@ -16,7 +16,7 @@ public sealed record ReminderRule(
     string Message,
     HazardKind Hazard,
     ReminderConditionKind Kind,
-    string? Channel = null,
+    ReminderChannelRole Role = ReminderChannelRole.None,
     double Threshold = 0,
     string Unit = "",
     TimeSpan Window = default);

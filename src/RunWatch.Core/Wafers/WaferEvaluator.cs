@@ -12,8 +12,8 @@ namespace RunWatch.Core.Wafers;
 /// </summary>
 public static class WaferEvaluator
 {
-    /// <summary>Wires that enter the statistics and the model: vertical and clear of the image edge and band.</summary>
-    public static bool Counts(FieldWire w) => w.Vertical && w.Interior;
+    /// <summary>Wires that enter the statistics and the model: vertical, clear of the image edge and band, with a radius (a bare droplet without a contact angle has none).</summary>
+    public static bool Counts(FieldWire w) => w.Vertical && w.Interior && double.IsFinite(w.RadiusNm);
 
     public static WaferEvaluation Evaluate(WaferEvaluationInput input)
     {

@@ -33,6 +33,15 @@ public sealed record FieldAnalysis
     /// <summary>Rows at the bottom excluded from analysis.</summary>
     public required int ExcludedBottomRows { get; init; }
 
+    /// <summary>Rows of an information strip found at the top and left out (0 when none).</summary>
+    public int ExcludedTopRows { get; init; }
+
+    /// <summary>Length of the scale bar found in the information strip, px; null when none was found.</summary>
+    public int? ScaleBarPixels { get; init; }
+
+    /// <summary>That bar's length at the configured scale, in <see cref="LengthUnit"/>: compare it with the number printed on it.</summary>
+    public double? ScaleBarLength { get; init; }
+
     /// <summary>Where the excluded band came from: "sidecar", "given", "detected" or "none".</summary>
     public required string ExcludedBandSource { get; init; }
 
@@ -41,6 +50,15 @@ public sealed record FieldAnalysis
     public FieldPosition? FieldPosition { get; init; }
 
     public double? TiltDeg { get; init; }
+
+    /// <summary>Edge blur σ (px) measured on the field's clean wire edges, used to correct sub-pixel areas; NaN when not measured.</summary>
+    public double EdgeSigmaPixels { get; init; } = double.NaN;
+
+    /// <summary>Where the field's fitted edge model puts the true edge relative to the half-level crossings, px (negative = inside; a bright rim pushes the crossings out). NaN when not fitted.</summary>
+    public double EdgeOffsetPixels { get; init; } = double.NaN;
+
+    /// <summary>How wire radii were measured, in words.</summary>
+    public string RadiusMethod { get; init; } = "threshold outline area";
 
     /// <summary>Every object found, in label order.</summary>
     public required IReadOnlyList<WireMeasurement> Wires { get; init; }

@@ -35,6 +35,14 @@ public sealed class FieldAnalysisOptions
     /// <value>1.3 (a regular hexagon gives 1.10, two touching discs 2)</value>
     public double CompactFactor { get; init; } = 1.3;
 
+    /// <summary>Enclosed background up to this many pixels joins the object around it (a top darker than its rim); 0 turns hole filling off.</summary>
+    /// <value>4096</value>
+    public int MaxHolePixels { get; init; } = 4096;
+
+    /// <summary>Cut a piece between two outline notches at least this deep inside its convex hull (touching tops that the watershed cannot part); 0 turns it off.</summary>
+    /// <value>1.5 px (a pixelised single hexagon has notches under 1 px)</value>
+    public double NotchDepthPixels { get; init; } = 1.5;
+
     /// <summary>Objects smaller than this many pixels are dropped as noise.</summary>
     /// <value>10</value>
     public int MinWireAreaPixels { get; init; } = 10;
@@ -45,6 +53,16 @@ public sealed class FieldAnalysisOptions
     /// <summary>Detect a uniform information strip at the bottom when no row count is given.</summary>
     /// <value>true</value>
     public bool DetectInfoStrip { get; init; } = true;
+
+    /// <summary>Measure radii at the sub-pixel edge (half-maximum along rays, docs/imaging.md); false keeps the threshold outline's area.</summary>
+    /// <value>true</value>
+    public bool SubPixelEdges { get; init; } = true;
+
+    /// <summary>
+    /// The process's droplet contact angle θ in degrees (&gt; 90°), for wires of which only the droplet is visible:
+    /// r_wire = r_drop·sin θ (spherical cap). Null: such wires report the droplet radius only and stay out of the radius statistics.
+    /// </summary>
+    public double? DropletContactAngleDeg { get; init; }
 
     public ClassificationOptions Classification { get; init; } = new();
 
@@ -79,6 +97,14 @@ public sealed class FieldAnalysisOptions
         {
             throw new ArgumentOutOfRangeException(nameof(HMaximaPixels), "h must be ≥ 0 and the compact factor ≥ 1");
         }
+        if (!(NotchDepthPixels >= 0))
+        {
+            throw new ArgumentOutOfRangeException(nameof(NotchDepthPixels), NotchDepthPixels, "must not be negative");
+        }
+        if (MaxHolePixels < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(MaxHolePixels), MaxHolePixels, "must not be negative");
+        }
         if (MinWireAreaPixels < 1)
         {
             throw new ArgumentOutOfRangeException(nameof(MinWireAreaPixels), MinWireAreaPixels, "must be at least 1");
@@ -86,6 +112,10 @@ public sealed class FieldAnalysisOptions
         if (ExcludedBottomRows is < 0)
         {
             throw new ArgumentOutOfRangeException(nameof(ExcludedBottomRows), ExcludedBottomRows, "must not be negative");
+        }
+        if (DropletContactAngleDeg is { } theta && !(theta > 90 && theta < 180))
+        {
+            throw new ArgumentOutOfRangeException(nameof(DropletContactAngleDeg), theta, "must lie between 90° and 180° (a droplet hiding its facet)");
         }
         Classification.Validate();
     }

@@ -80,6 +80,11 @@ public static partial class FieldAnalyzer
         {
             notes.Add("point-pattern statistics skipped: " + ex.Message);
         }
+        catch (MathNet.Numerics.Optimization.OptimizationException ex)
+        {
+            // Near-identical cells (a regular lattice) leave the Wigner likelihood without an interior maximum.
+            notes.Add("point-pattern statistics skipped: the Wigner surmise fit found no maximum (" + ex.Message + ")");
+        }
         return (wires, stats);
     }
 }

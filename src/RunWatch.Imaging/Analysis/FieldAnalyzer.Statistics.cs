@@ -1,15 +1,23 @@
+using RunWatch.Core.Profiles;
 using RunWatch.Imaging.Measurement;
 
 namespace RunWatch.Imaging.Analysis;
 
 public static partial class FieldAnalyzer
 {
-    private static WireMeasurement[] Classify(List<RawWire> raw, int width, int validHeight, double lengthScale, ClassificationOptions rules)
+    private static WireMeasurement[] Classify(List<RawWire> raw, EdgeProfile[]? edges, double[] alignedProfiles, int width, int validHeight, double lengthScale, double cosTilt,
+        FieldAnalysisOptions options, List<string> notes, out double edgeSigma, out double edgeOffset)
     {
+        var profileSet = new List<int>(raw.Count);
+        ClassificationOptions rules = options.Classification;
         var candidateAreas = new List<double>(raw.Count);
         var interiorAreas = new List<double>(raw.Count);
-        foreach (RawWire r in raw)
+        var contrasts = new List<double>(raw.Count);
+        var roundContrasts = new List<double>();
+        var sigmas = new List<double>(raw.Count);
+        for (int i = 0; i < raw.Count; i++)
         {
+            RawWire r = raw[i];
             if (TouchesBorder(r, width, validHeight))
             {
                 continue;
@@ -18,38 +26,120 @@ public static partial class FieldAnalyzer
             if (Aspect(r) <= rules.MaxAspectRatio && Solidity(r) >= rules.MinSolidity)
             {
                 candidateAreas.Add(r.Area);
+                if (edges is not null && edges[i].ValidRays >= EdgeRefiner.Rays - 8 && edges[i].Irregularity <= rules.MaxIrregularity)
+                {
+                    EdgeProfile e = edges[i];
+                    (e.SixFold >= rules.MaxDropletSixFold ? contrasts : roundContrasts).Add(e.Top - e.Substrate);
+                    if (e.SixFold >= rules.MaxDropletSixFold)
+                    {
+                        profileSet.Add(i);
+                    }
+                    if (e.EdgeSigma is > 0 and < 4)
+                    {
+                        sigmas.Add(e.EdgeSigma);
+                    }
+                }
             }
         }
         List<double> basis = candidateAreas.Count > 0 ? candidateAreas : interiorAreas;
-        double medianArea = double.PositiveInfinity;
-        if (basis.Count > 0)
+        double medianArea = basis.Count > 0 ? Median(basis) : double.PositiveInfinity;
+        // The reference top contrast is the hexagonal tops', taken per tile so that charging drift and gradients cancel.
+        // Without ten of them no object is taken for a bare droplet.
+        bool reference = contrasts.Count >= 10;
+        double medianContrast = reference ? Median(contrasts) : roundContrasts.Count + contrasts.Count > 0 ? Median([.. contrasts, .. roundContrasts]) : double.NaN;
+        ContrastTiles tiles = reference && edges is not null ? ContrastTiles.Build(raw, edges, profileSet, width, validHeight, medianContrast) : ContrastTiles.Flat(medianContrast);
+        // Noise roughens every outline by about the same number of pixels, so the irregularity allowed grows as 1/r.
+        double noiseIrregularity = edges is null ? 0 : IrregularityScale(raw, edges, profileSet);
+        // The field's edge model (rim and blur) from the hexagonal tops; the flank width is the fallback for σ.
+        BlurredEdge? model = edges is null ? null : FitFieldEdge(alignedProfiles, profileSet);
+        edgeSigma = model?.Sigma ?? (sigmas.Count >= 5 ? Median(sigmas) : double.NaN);
+        edgeOffset = model?.Offset ?? 0;
+        if (edges is not null && double.IsNaN(edgeSigma))
         {
-            double[] sorted = basis.ToArray();
-            Array.Sort(sorted);
-            medianArea = DistributionSummary.Percentile(sorted, 50);
+            notes.Add("too few clean wire edges to measure the edge blur; radii at the sub-pixel edge are not corrected for it");
         }
+        double blurArea = double.IsNaN(edgeSigma) ? 0 : Math.PI * edgeSigma * edgeSigma;
+        double? sinTheta = options.DropletContactAngleDeg is { } theta ? Math.Sin(theta * Math.PI / 180) : null;
+
+        // Bare droplets have their own edge (the secant-law brightening of a sphere's slope): their own edge model.
+        var dropletSet = new List<int>();
+        if (edges is not null && reference)
+        {
+            for (int i = 0; i < raw.Count; i++)
+            {
+                EdgeProfile e = edges[i];
+                if (e.ValidRays >= EdgeRefiner.Rays - 8 && e.SixFold < rules.MaxDropletSixFold && e.Irregularity <= rules.MaxIrregularity
+                    && (e.Top - e.Substrate) / tiles.At(raw[i].CentroidX, raw[i].CentroidY) > rules.MaxRelativeContrast)
+                {
+                    dropletSet.Add(i);
+                }
+            }
+        }
+        BlurredEdge? dropletModel = dropletSet.Count >= 5 ? FitFieldEdge(alignedProfiles, dropletSet) : null;
+        double dropletOffset = dropletModel?.Offset ?? edgeOffset;
 
         var wires = new WireMeasurement[raw.Count];
         double areaScale = lengthScale * lengthScale;
+        int dropletOnlyCount = 0;
         for (int i = 0; i < raw.Count; i++)
         {
             RawWire r = raw[i];
-            double aspect = Aspect(r);
+            EdgeProfile e = edges is null ? default : edges[i];
+            bool hasEdge = e.ValidRays >= 12 && e.HalfLevelArea > 0;
+            double relative = hasEdge ? (e.Top - e.Substrate) / tiles.At(r.CentroidX, r.CentroidY) : double.NaN;
+            double irregularLimit = hasEdge ? Math.Max(rules.MaxIrregularity, 2.5 * noiseIrregularity / Math.Sqrt(e.HalfLevelArea / Math.PI)) : rules.MaxIrregularity;
+            // A split piece's Feret box includes its cut; the located edge rays do not (the cut's rays are blocked).
+            double aspect = (r.FromSplit || cosTilt < 0.9999) && double.IsFinite(e.RayAspect) ? e.RayAspect : Aspect(r);
             double solidity = Solidity(r);
             double circularity = r.Perimeter > 0 ? 4 * Math.PI * r.Area / (r.Perimeter * r.Perimeter) : 0;
+            bool round = hasEdge && e.SixFold < rules.MaxDropletSixFold && e.Irregularity <= irregularLimit;
+            bool dropletOnly = round && reference && relative > rules.MaxRelativeContrast;
+            // A droplet on the top brightens it (a bright core): the upper contrast limit does not apply then.
+            bool unlikeWire = hasEdge && !dropletOnly
+                && (e.Irregularity > irregularLimit || relative < rules.MinRelativeContrast || (relative > rules.MaxRelativeContrast && e.CoreRadius <= 0 && e.SixFold < rules.MaxDropletSixFold));
             WireClass cls =
                 aspect > rules.MaxAspectRatio ? WireClass.Elongated
+                : dropletOnly ? WireClass.Vertical
                 : r.Area > rules.MaxAreaOverMedian * medianArea ? WireClass.Oversized
-                : solidity < rules.MinSolidity || circularity < rules.MinCircularity ? WireClass.Irregular
+                : solidity < rules.MinSolidity || circularity < rules.MinCircularity || unlikeWire ? WireClass.Irregular
                 : WireClass.Vertical;
+
+            double thresholdRadius = Math.Sqrt(r.Area / cosTilt / Math.PI);
+            double radius = thresholdRadius;
+            string method = "threshold";
+            double? droplet = null;
+            if (hasEdge)
+            {
+                double crossingRadius = Math.Sqrt(e.HalfLevelArea / Math.PI);
+                double edgeRadius = Math.Sqrt(Math.Pow(crossingRadius + edgeOffset, 2) + (blurArea / Math.PI));
+                if (dropletOnly)
+                {
+                    droplet = Math.Sqrt(Math.Pow(crossingRadius + dropletOffset, 2) + (blurArea / Math.PI));
+                    radius = sinTheta is { } sin ? droplet.Value * sin : double.NaN;
+                    method = "droplet";
+                    dropletOnlyCount += cls == WireClass.Vertical ? 1 : 0;
+                }
+                else
+                {
+                    radius = edgeRadius;
+                    method = "edge";
+                    // The core's half-level circle shrinks by σ²/(2r) under the blur, as any curved edge does (DERIVED).
+                    droplet = e.CoreRadius > 0 ? e.CoreRadius + (blurArea / Math.PI / (2 * e.CoreRadius)) : null;
+                }
+            }
             wires[i] = new WireMeasurement
             {
                 Id = r.Label,
                 AreaPixels = r.Area,
-                Area = r.Area * areaScale,
-                EquivalentRadius = Math.Sqrt(r.Area / Math.PI) * lengthScale,
+                Area = Math.PI * radius * radius * areaScale,
+                EquivalentRadius = radius * lengthScale,
+                ThresholdRadius = thresholdRadius * lengthScale,
+                RadiusMethod = method,
+                DropletRadius = droplet * lengthScale,
+                Irregularity = e.Irregularity,
+                RelativeContrast = relative,
                 CentroidX = r.CentroidX * lengthScale,
-                CentroidY = r.CentroidY * lengthScale,
+                CentroidY = r.CentroidY / cosTilt * lengthScale,
                 MinFeret = r.MinFeret * lengthScale,
                 MaxFeret = r.MaxFeret * lengthScale,
                 Circularity = circularity,
@@ -61,7 +151,32 @@ public static partial class FieldAnalyzer
                 Split = r.FromSplit,
             };
         }
+        if (dropletOnlyCount > 0 && sinTheta is null)
+        {
+            notes.Add($"{dropletOnlyCount} wires show only their droplet; set the process's droplet contact angle to turn droplet radii into wire radii (they are left out of the radius statistics)");
+        }
         return wires;
+    }
+
+    /// <summary>Median of irregularity × edge radius over the wire candidates: the part of irregularity that noise explains, in px.</summary>
+    private static double IrregularityScale(List<RawWire> raw, EdgeProfile[] edges, List<int> candidates)
+    {
+        var scaled = new List<double>(candidates.Count);
+        foreach (int i in candidates)
+        {
+            if (double.IsFinite(edges[i].Irregularity))
+            {
+                scaled.Add(edges[i].Irregularity * Math.Sqrt(edges[i].HalfLevelArea / Math.PI));
+            }
+        }
+        return scaled.Count >= 5 ? Median(scaled) : 0;
+    }
+
+    private static double Median(List<double> values)
+    {
+        double[] sorted = values.ToArray();
+        Array.Sort(sorted);
+        return DistributionSummary.Percentile(sorted, 50);
     }
 
     private static bool TouchesBorder(in RawWire r, int width, int validHeight) =>
@@ -88,7 +203,10 @@ public static partial class FieldAnalyzer
             {
                 case WireClass.Vertical:
                     vertical++;
-                    radii.Add(wire.EquivalentRadius);
+                    if (double.IsFinite(wire.EquivalentRadius))
+                    {
+                        radii.Add(wire.EquivalentRadius);
+                    }
                     break;
                 case WireClass.Elongated:
                     elongated++;

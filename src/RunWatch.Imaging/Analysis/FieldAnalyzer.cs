@@ -41,7 +41,54 @@ public static partial class FieldAnalyzer
         return Run(image, name, sidecar, options, 0);
     }
 
+    /// <summary>
+    /// A strip at the top is cut off and the rest analysed as its own image; positions are then shifted back and the
+    /// label rasters padded, so callers see the whole field's coordinates.
+    /// </summary>
     private static (FieldAnalysis, FieldRaster) Run(GrayImage image, string name, FieldSidecar? sidecar, FieldAnalysisOptions options, double decodeMs)
+    {
+        int w = image.Width, h = image.Height;
+        bool detect = options.DetectInfoStrip && sidecar?.ExcludedBottomRows is null && options.ExcludedBottomRows is null;
+        int top = detect ? InfoStripDetector.DetectTopRows(image.Pixels, w, h) : 0;
+        if (top == 0 || top >= h - 8)
+        {
+            return RunRows(image, name, sidecar, options, decodeMs);
+        }
+        var below = new GrayImage(w, h - top, image.Pixels[(top * w)..])
+        {
+            SourceBitsPerPixel = image.SourceBitsPerPixel,
+            SourceFormat = image.SourceFormat,
+            Resolution = image.Resolution,
+        };
+        (FieldAnalysis a, FieldRaster r) = RunRows(below, name, sidecar, options, decodeMs);
+        double lengthScale = a.Scale.HasScale ? a.Scale.PixelSizeNm!.Value : 1;
+        double cosTilt = sidecar?.TiltDeg is { } t && Math.Abs(t) > 1 ? Math.Cos(t * Math.PI / 180) : 1;
+        double shift = top / cosTilt * lengthScale;
+        var wires = a.Wires.Select(wire => wire with { CentroidY = wire.CentroidY + shift }).ToArray();
+        var labels = new int[w * h];
+        Array.Copy(r.Labels, 0, labels, top * w, r.Labels.Length);
+        int[]? zones = null;
+        if (r.ZoneMap is not null)
+        {
+            zones = new int[w * h];
+            Array.Copy(r.ZoneMap, 0, zones, top * w, r.ZoneMap.Length);
+        }
+        int? bar = ScaleBarDetector.Measure(image.Pixels, w, 0, top);
+        var notes = new List<string>(a.Notes);
+        ScaleBarCheck.AddNote(notes, bar, a.Scale);
+        FieldAnalysis shifted = a with
+        {
+            Height = h,
+            Wires = wires,
+            ExcludedTopRows = top,
+            ScaleBarPixels = bar,
+            ScaleBarLength = bar * lengthScale,
+            Notes = notes,
+        };
+        return (shifted, new FieldRaster(image, labels, zones, r.ValidHeight + top));
+    }
+
+    private static (FieldAnalysis, FieldRaster) RunRows(GrayImage image, string name, FieldSidecar? sidecar, FieldAnalysisOptions options, double decodeMs)
     {
         var timings = new List<StageTiming>();
         if (decodeMs > 0)
@@ -65,7 +112,7 @@ public static partial class FieldAnalyzer
         }
         if (sidecar?.TiltDeg is { } tilt && Math.Abs(tilt) > 1)
         {
-            notes.Add($"the field was imaged at {tilt:0.#}° tilt; the analysis assumes a top-down view, so areas and densities are not corrected");
+            notes.Add($"the field was imaged at {tilt:0.#}° tilt: positions, radii, shapes and densities are corrected for the foreshortening (cos θ along y); edge-based zones are counted on the image raster and are not");
         }
 
         (int bandRows, string bandSource) = ExcludedBand(image, sidecar, options);
@@ -76,6 +123,8 @@ public static partial class FieldAnalyzer
             notes.Add("the excluded band would cover the whole image; it was ignored");
         }
         int validH = h - bandRows;
+        int? scaleBar = bandRows >= 4 ? ScaleBarDetector.Measure(image.Pixels, w, validH, bandRows) : null;
+        ScaleBarCheck.AddNote(notes, scaleBar, scale);
         Mark("band");
 
         // One 16-bit work image serves first as the flattened image, then as the zones' column pass.
@@ -94,10 +143,15 @@ public static partial class FieldAnalyzer
         List<RawWire> raw = SplitAndMeasure(labels, image.Pixels, w, count, boxes, options);
         Mark("split+measure");
 
+        double cosTilt = sidecar?.TiltDeg is { } t && Math.Abs(t) > 1 ? Math.Cos(t * Math.PI / 180) : 1;
+        double[] alignedProfiles = [];
+        EdgeProfile[]? edges = options.SubPixelEdges ? RefineEdges(raw, image.Pixels, labels, w, validH, cosTilt, out alignedProfiles) : null;
+        Mark("sub-pixel edges");
+
         double pixelNm = scale.PixelSizeNm ?? 1;
         double lengthScale = scale.HasScale ? pixelNm : 1;
         double? lengthL = DiffusionLength(options, scale, notes);
-        WireMeasurement[] wires = Classify(raw, w, validH, lengthScale, options.Classification);
+        WireMeasurement[] wires = Classify(raw, edges, alignedProfiles, w, validH, lengthScale, cosTilt, options, notes, out double edgeSigma, out double edgeOffset);
         Mark("classify");
 
         int[]? zoneMap = null;
@@ -109,9 +163,11 @@ public static partial class FieldAnalyzer
             Mark("edge zones");
         }
 
-        (wires, FieldStatistics stats) = Summarise(wires, w, validH, lengthScale, scale.HasScale, lengthL, zoneAreas, notes);
+        // Statistics and point patterns work in the sample plane: the analysed rows stretched by 1/cos θ.
+        int planeH = (int)Math.Round(validH / cosTilt);
+        (wires, FieldStatistics stats) = Summarise(wires, w, planeH, lengthScale, scale.HasScale, lengthL, zoneAreas, notes);
         Mark("statistics");
-        (wires, stats) = AddPointPatterns(wires, stats, w, validH, lengthScale, lengthL, notes);
+        (wires, stats) = AddPointPatterns(wires, stats, w, planeH, lengthScale, lengthL, notes);
         Mark("point patterns");
         if (wires.Length == 0)
         {
@@ -133,6 +189,11 @@ public static partial class FieldAnalyzer
             WaferId = sidecar?.WaferId,
             FieldPosition = sidecar?.FieldPosition,
             TiltDeg = sidecar?.TiltDeg,
+            ScaleBarPixels = scaleBar,
+            ScaleBarLength = scaleBar * (scale.HasScale ? scale.PixelSizeNm!.Value : 1),
+            EdgeSigmaPixels = edgeSigma,
+            EdgeOffsetPixels = edgeOffset,
+            RadiusMethod = options.SubPixelEdges ? "half-maximum edge along 48 rays, blur-corrected (docs/imaging.md)" : "threshold outline area",
             Wires = wires,
             Statistics = stats,
             Notes = notes,
@@ -213,7 +274,7 @@ public static partial class FieldAnalyzer
     {
         var perComponent = new List<RawWire>[count + 1];
         var maps = new int[]?[count + 1];
-        Parallel.For(1, count + 1, () => new ComponentSplitter(options.HMaximaPixels, options.CompactFactor), (c, _, splitter) =>
+        Parallel.For(1, count + 1, () => new ComponentSplitter(options.HMaximaPixels, options.CompactFactor, options.MaxHolePixels, options.NotchDepthPixels), (c, _, splitter) =>
         {
             var list = new List<RawWire>(1);
             maps[c] = splitter.Process(labels, intensity, width, c, boxes[c], list);

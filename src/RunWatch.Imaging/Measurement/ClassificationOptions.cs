@@ -19,6 +19,20 @@ public sealed class ClassificationOptions
     /// <value>0.7</value>
     public double MinCircularity { get; init; } = 0.7;
 
+    /// <summary>Largest relative amplitude of the edge radius's 2nd–5th angular harmonics of a vertical wire (a hexagon has none); crystallites have more.</summary>
+    /// <value>0.06</value>
+    public double MaxIrregularity { get; init; } = 0.06;
+
+    /// <summary>Range of a vertical wire's top contrast (edge peak − substrate) relative to the field's median; crystallites and debris differ.</summary>
+    /// <value>0.72 … 1.4</value>
+    public double MinRelativeContrast { get; init; } = 0.72;
+
+    public double MaxRelativeContrast { get; init; } = 1.4;
+
+    /// <summary>An object rounder than this (6th harmonic of the edge radius) and brighter than <see cref="MaxRelativeContrast"/> is a droplet hiding its facet; a blurred hexagon gives about 0.04.</summary>
+    /// <value>0.02</value>
+    public double MaxDropletSixFold { get; init; } = 0.02;
+
     public void Validate()
     {
         if (!(MaxAspectRatio >= 1))

@@ -14,8 +14,27 @@ public sealed record WireMeasurement
 
     public required double Area { get; init; }
 
-    /// <summary>√(area/π).</summary>
+    /// <summary>
+    /// The wire's radius, √(facet area/π): at the sub-pixel edge when <see cref="RadiusMethod"/> is "edge", from the
+    /// droplet and the process contact angle when "droplet", from the threshold outline when "threshold"; NaN when only a
+    /// droplet was seen and no contact angle is set. Corrected for stage tilt.
+    /// </summary>
     public required double EquivalentRadius { get; init; }
+
+    /// <summary>√(pixel count/π) of the threshold outline (the detector's own figure).</summary>
+    public double ThresholdRadius { get; init; }
+
+    /// <summary>"edge", "droplet" or "threshold": how <see cref="EquivalentRadius"/> was measured.</summary>
+    public string RadiusMethod { get; init; } = "threshold";
+
+    /// <summary>Radius of the catalyst droplet seen from the top, or null when none was found.</summary>
+    public double? DropletRadius { get; init; }
+
+    /// <summary>Relative amplitude of the edge radius's 2nd–5th angular harmonics (NaN when too few edge rays).</summary>
+    public double Irregularity { get; init; } = double.NaN;
+
+    /// <summary>Top contrast (edge peak − local substrate) relative to the field's median; NaN without edges.</summary>
+    public double RelativeContrast { get; init; } = double.NaN;
 
     public required double CentroidX { get; init; }
 

@@ -2,8 +2,8 @@ namespace RunWatch.Imaging.Overlay;
 
 /// <summary>
 /// A small 5 × 7 pixel font of our own for overlay labels (ImageSharp 2.1 draws no text without
-/// SixLabors.ImageSharp.Drawing, which is not available here). Upper-case letters, digits and a few signs;
-/// lower-case letters are drawn as upper-case.
+/// SixLabors.ImageSharp.Drawing, which is not available here). Upper-case letters, digits, a few signs and the
+/// lower-case letters of unit symbols (m, n, p, x); other lower-case letters are drawn as upper-case.
 /// </summary>
 internal static class BitmapFont
 {
@@ -61,6 +61,12 @@ internal static class BitmapFont
         [')'] = [0x08, 0x04, 0x02, 0x02, 0x02, 0x04, 0x08],
         ['/'] = [0x00, 0x01, 0x02, 0x04, 0x08, 0x10, 0x00],
         [' '] = [0, 0, 0, 0, 0, 0, 0],
+
+        // The few lower-case letters unit symbols need (µm, nm, px): a unit's case carries meaning (µm, not µM = micromolar).
+        ['m'] = [0x00, 0x00, 0x1A, 0x15, 0x15, 0x15, 0x15],
+        ['n'] = [0x00, 0x00, 0x16, 0x19, 0x11, 0x11, 0x11],
+        ['p'] = [0x00, 0x00, 0x1E, 0x11, 0x1E, 0x10, 0x10],
+        ['x'] = [0x00, 0x00, 0x11, 0x0A, 0x04, 0x0A, 0x11],
     };
 
     /// <summary>Width in pixels of <paramref name="text"/> at <paramref name="scale"/>.</summary>
@@ -69,8 +75,7 @@ internal static class BitmapFont
     /// <summary>True when glyph pixel (col, row) of <paramref name="c"/> is ink; unknown characters draw as a box.</summary>
     public static bool Ink(char c, int col, int row)
     {
-        char key = c is 'µ' ? c : char.ToUpperInvariant(c);
-        if (!Glyphs.TryGetValue(key, out byte[]? rows))
+        if (!Glyphs.TryGetValue(c, out byte[]? rows) && !Glyphs.TryGetValue(char.ToUpperInvariant(c), out rows))
         {
             return row == 0 || row == GlyphHeight - 1 || col == 0 || col == GlyphWidth - 1;
         }

@@ -175,8 +175,8 @@ public static class OverlayRenderer
         double nice = target / magnitude >= 5 ? 5 * magnitude : target / magnitude >= 2 ? 2 * magnitude : magnitude;
         int barPx = Math.Max(1, (int)Math.Round(nice / unitPerPixel));
         string label = !a.Scale.HasScale
-            ? nice.ToString("0", CultureInfo.InvariantCulture) + " PX"
-            : nice >= 1000 ? (nice / 1000).ToString("0.###", CultureInfo.InvariantCulture) + " µM" : nice.ToString("0", CultureInfo.InvariantCulture) + " NM";
+            ? nice.ToString("0", CultureInfo.InvariantCulture) + " px"
+            : nice >= 1000 ? (nice / 1000).ToString("0.###", CultureInfo.InvariantCulture) + " µm" : nice.ToString("0", CultureInfo.InvariantCulture) + " nm";
         int textW = BitmapFont.Measure(label, s);
         int boxW = Math.Max(barPx, textW) + 8 * s;
         int boxH = (BitmapFont.GlyphHeight + 12) * s;

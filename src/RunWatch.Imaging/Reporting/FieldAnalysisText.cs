@@ -24,7 +24,12 @@ public static class FieldAnalysisText
         {
             Line(sb, $"  wafer {a.WaferId ?? "?"}" + (a.FieldPosition is { } p ? string.Create(Inv, $", field at ({p.XMm:0.###}, {p.YMm:0.###}) mm") : ""));
         }
-        Line(sb, $"  threshold {a.Threshold} ({a.ThresholdMethod}); excluded band {a.ExcludedBottomRows} rows ({a.ExcludedBandSource})");
+        Line(sb, $"  threshold {a.Threshold} ({a.ThresholdMethod}); excluded band {a.ExcludedBottomRows} rows ({a.ExcludedBandSource})" + (a.ExcludedTopRows > 0 ? $", strip at the top {a.ExcludedTopRows} rows (detected)" : ""));
+        Line(sb, string.Create(Inv, $"  radius: {a.RadiusMethod}") + (double.IsFinite(a.EdgeSigmaPixels) ? string.Create(Inv, $"; edge blur σ {a.EdgeSigmaPixels:0.00} px, rim offset {a.EdgeOffsetPixels:+0.00;-0.00} px") : ""));
+        if (a.ScaleBarPixels is { } bar)
+        {
+            Line(sb, string.Create(Inv, $"  scale bar in the strip: {bar} px = {a.ScaleBarLength:0.#} {u} at the configured scale (compare with the number printed on it)"));
+        }
         Line(sb, $"  objects {s.ObjectsFound}: interior {s.InteriorObjects} (vertical {s.Vertical}, elongated {s.Elongated}, oversized {s.Oversized}, irregular {s.Irregular}), {s.ObjectsTouchingBorder} touching the border");
         if (s.InteriorObjects > 0)
         {

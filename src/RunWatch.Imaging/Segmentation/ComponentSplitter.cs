@@ -11,8 +11,10 @@ namespace RunWatch.Imaging.Segmentation;
 /// the disc of their largest inscribed radius) cannot hold two significant peaks and skip the flooding.
 /// One instance per thread; buffers grow to the largest component seen and are reused.
 /// </summary>
-internal sealed class ComponentSplitter(double hMaximaPixels, double compactFactor)
+internal sealed class ComponentSplitter(double hMaximaPixels, double compactFactor, int maxHolePixels = 0, double notchDepthPixels = 0)
 {
+    private readonly NotchSplitter _notches = new();
+    private int[] _queue = [];
     private static readonly (int Dx, int Dy)[] Neighbours8 = [(-1, -1), (0, -1), (1, -1), (-1, 0), (1, 0), (-1, 1), (0, 1), (1, 1)];
 
     private int[] _features = [];
@@ -58,9 +60,11 @@ internal sealed class ComponentSplitter(double hMaximaPixels, double compactFact
             }
         }
 
+        int area = box.Area + (maxHolePixels > 0 ? FillHoles(labels, width, label, box, pw, ph) : 0);
+
         int pieces = 1;
         Array.Fill(_piece, 0, 0, n);
-        if (box.Area >= 8 && box.Width >= 3 && box.Height >= 3)
+        if (area >= 8 && box.Width >= 3 && box.Height >= 3)
         {
             DistanceTransform.ComputeDistance2(feat, pw, ph, _distance2, _nearestRow, _rowScratch, _column);
             int max2 = 0;
@@ -72,9 +76,13 @@ internal sealed class ComponentSplitter(double hMaximaPixels, double compactFact
                 }
             }
             double inscribed = Math.Sqrt(max2);
-            if (box.Area > compactFactor * Math.PI * inscribed * inscribed)
+            if (area > compactFactor * Math.PI * inscribed * inscribed)
             {
                 pieces = Flood(pw, n);
+            }
+            if (notchDepthPixels > 0)
+            {
+                pieces = _notches.Split(_features, _piece, pw, ph, pieces, notchDepthPixels);
             }
         }
         Measure(intensity, width, label, box, pw, ph, pieces, output);
@@ -88,6 +96,77 @@ internal sealed class ComponentSplitter(double hMaximaPixels, double compactFact
             map[i] = feat[i] == 0 ? _piece[i] + 1 : 0;
         }
         return map;
+    }
+
+    /// <summary>
+    /// Background pixels of the box that the outside cannot reach (4-connected) are holes: a wire top whose interior
+    /// fell below the threshold while its bright rim stayed above it. Holes up to the size limit join the component,
+    /// in the patch and in the label image; returns the pixels added.
+    /// </summary>
+    private int FillHoles(int[] labels, int width, int label, in ComponentBox box, int pw, int ph)
+    {
+        int n = pw * ph;
+        if (_queue.Length < n)
+        {
+            _queue = new int[Math.Max(n, _queue.Length * 2)];
+        }
+        // _piece doubles as the "reached from outside" mark here; it is cleared again before splitting.
+        Array.Fill(_piece, 0, 0, n);
+        int head = 0, tail = 0;
+        for (int i = 0; i < n; i++)
+        {
+            int x = i % pw, y = i / pw;
+            if ((x == 0 || y == 0 || x == pw - 1 || y == ph - 1) && _features[i] != 0)
+            {
+                _piece[i] = 1;
+                _queue[tail++] = i;
+            }
+        }
+        while (head < tail)
+        {
+            int p = _queue[head++];
+            int x = p % pw;
+            Reach(p - pw, p >= pw);
+            Reach(p + pw, p + pw < n);
+            Reach(p - 1, x > 0);
+            Reach(p + 1, x < pw - 1);
+        }
+        int holes = 0;
+        for (int i = 0; i < n; i++)
+        {
+            if (_features[i] != 0 && _piece[i] == 0)
+            {
+                holes++;
+            }
+        }
+        if (holes == 0 || holes > maxHolePixels)
+        {
+            return 0;
+        }
+        int added = 0;
+        for (int i = 0; i < n; i++)
+        {
+            if (_features[i] != 0 && _piece[i] == 0)
+            {
+                int src = ((i / pw) - 1 + box.MinY) * width + (i % pw) - 1 + box.MinX;
+                if (labels[src] == 0)
+                {
+                    labels[src] = label;
+                    _features[i] = 0;
+                    added++;
+                }
+            }
+        }
+        return added;
+
+        void Reach(int q, bool inside)
+        {
+            if (inside && _features[q] != 0 && _piece[q] == 0)
+            {
+                _piece[q] = 1;
+                _queue[tail++] = q;
+            }
+        }
     }
 
     private int Flood(int pw, int n)

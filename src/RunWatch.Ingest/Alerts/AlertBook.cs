@@ -9,6 +9,15 @@ namespace RunWatch.Ingest.Alerts;
 /// </summary>
 internal sealed class AlertBook
 {
+    /// <summary>Change name of a condition recorded as suppressed by design (not sent to sinks).</summary>
+    public const string SuppressedChange = "suppressed";
+
+    /// <summary>Change name of a suppressed condition that cleared without being raised (not sent to sinks).</summary>
+    public const string SuppressionEndedChange = "suppression-ended";
+
+    /// <summary>Detail kept with a record that was suppressed by design, so that history can tell it from a raised alert.</summary>
+    public const string SuppressedDetail = """{"suppressedByDesign":true}""";
+
     private readonly Dictionary<string, AlertRecord> _current = new(StringComparer.Ordinal);
     private readonly Dictionary<string, DateTimeOffset> _replayHorizon = new(StringComparer.Ordinal);
 
@@ -70,6 +79,12 @@ internal sealed class AlertBook
         double? value = double.IsFinite(signal.Value) ? signal.Value : null;
         (AlertRecord, string)? result = signal.To switch
         {
+            AlarmState.SuppressedByDesign when existing is null || existing.State == AlertState.Normal => (new AlertRecord
+            {
+                Key = signal.Key, Chamber = signal.Chamber, Kind = signal.Kind, Severity = AlertKinds.Severity(signal.Kind),
+                State = AlertState.Suppressed, Message = signal.Message, RaisedAt = signal.At, UpdatedAt = signal.At, PeakValue = value,
+                DetailJson = SuppressedDetail,
+            }, SuppressedChange),
             AlarmState.ActiveUnacknowledged when existing is null || existing.State == AlertState.Normal => (new AlertRecord
             {
                 Key = signal.Key, Chamber = signal.Chamber, Kind = signal.Kind, Severity = AlertKinds.Severity(signal.Kind),
@@ -77,8 +92,15 @@ internal sealed class AlertBook
             }, existing?.State == AlertState.Shelved ? "unshelved" : "raised"),
             AlarmState.ActiveUnacknowledged => (existing with
             {
+                // Raised out of suppression (the ramp timed out, or growth began off setpoint): raised from now.
                 State = AlertState.Unacknowledged, ClearedAt = null, Message = signal.Message, UpdatedAt = signal.At, PeakValue = value ?? existing.PeakValue,
+                RaisedAt = existing.State == AlertState.Suppressed ? signal.At : existing.RaisedAt,
+                DetailJson = existing.State == AlertState.Suppressed ? null : existing.DetailJson,
             }, existing.State == AlertState.Shelved ? "unshelved" : "raised"),
+            AlarmState.Normal when existing is { State: AlertState.Suppressed } => (existing with
+            {
+                State = AlertState.Normal, ClearedAt = signal.At, UpdatedAt = signal.At,
+            }, SuppressionEndedChange),
             AlarmState.ActiveAcknowledged when existing is not null => (existing with
             {
                 State = AlertState.Acknowledged, AcknowledgedAt = signal.At, AcknowledgedBy = user ?? existing.AcknowledgedBy, UpdatedAt = signal.At,

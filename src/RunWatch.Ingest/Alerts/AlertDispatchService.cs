@@ -41,10 +41,10 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
         _logger = logger;
     }
 
-    public async Task<bool> AcknowledgeAsync(long alertId, string user, CancellationToken cancellationToken)
+    public async Task<bool> AcknowledgeAsync(long alertId, string user, string? comment, CancellationToken cancellationToken)
     {
         var alert = await _store.GetAlertAsync(alertId, cancellationToken).ConfigureAwait(false);
-        if (alert is null || alert.State is AlertState.Normal or AlertState.Acknowledged)
+        if (alert is null || alert.State is AlertState.Normal or AlertState.Acknowledged or AlertState.Suppressed)
         {
             return false;
         }
@@ -55,7 +55,8 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
         bool changed = alert.Chamber is null ? AcknowledgeStore() : _engine.Acknowledge(alert.Chamber, alert.Kind);
         if (changed)
         {
-            await _store.AppendAuditAsync(new AuditEntry(_timeProvider.GetUtcNow(), user, "alert-acknowledged", alertId.ToString(System.Globalization.CultureInfo.InvariantCulture), null), cancellationToken).ConfigureAwait(false);
+            await _store.AppendAuditAsync(new AuditEntry(_timeProvider.GetUtcNow(), user, "alert-acknowledged", alertId.ToString(System.Globalization.CultureInfo.InvariantCulture),
+                AuditJson(comment, null)), cancellationToken).ConfigureAwait(false);
         }
         return changed;
     }
@@ -77,10 +78,11 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
         return active.Count;
     }
 
-    public async Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, CancellationToken cancellationToken)
+    public async Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, string? comment, CancellationToken cancellationToken)
     {
         var alert = await _store.GetAlertAsync(alertId, cancellationToken).ConfigureAwait(false);
-        if (alert is null || alert.Chamber is null || alert.State == AlertState.Normal)
+        // Shelving is an operator's choice for a raised alert; a condition suppressed by design is not raised.
+        if (alert is null || alert.Chamber is null || alert.State is AlertState.Normal or AlertState.Suppressed)
         {
             return false;
         }
@@ -88,9 +90,33 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
         if (changed)
         {
             await _store.AppendAuditAsync(new AuditEntry(_timeProvider.GetUtcNow(), user, "alert-shelved", alertId.ToString(System.Globalization.CultureInfo.InvariantCulture),
-                "{\"seconds\":" + ((long)duration.TotalSeconds).ToString(System.Globalization.CultureInfo.InvariantCulture) + "}"), cancellationToken).ConfigureAwait(false);
+                AuditJson(comment, (long)duration.TotalSeconds)), cancellationToken).ConfigureAwait(false);
         }
         return changed;
+    }
+
+    /// <summary>The audit detail of one operator action: the comment as <c>detail</c> and, for a shelve, its length in <c>seconds</c>.</summary>
+    private static string? AuditJson(string? comment, long? seconds)
+    {
+        if (string.IsNullOrWhiteSpace(comment) && seconds is null)
+        {
+            return null;
+        }
+        var buffer = new System.Buffers.ArrayBufferWriter<byte>();
+        using (var writer = new System.Text.Json.Utf8JsonWriter(buffer))
+        {
+            writer.WriteStartObject();
+            if (!string.IsNullOrWhiteSpace(comment))
+            {
+                writer.WriteString("detail", comment);
+            }
+            if (seconds is { } s)
+            {
+                writer.WriteNumber("seconds", s);
+            }
+            writer.WriteEndObject();
+        }
+        return System.Text.Encoding.UTF8.GetString(buffer.WrittenSpan);
     }
 
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
@@ -139,9 +165,13 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
                 {
                     notification = notification with { Alert = withId };
                 }
-                foreach (var (_, queue) in queues)
+                // A condition suppressed by design is recorded in the store only: it is never raised to the sinks.
+                if (notification.Change is not (AlertBook.SuppressedChange or AlertBook.SuppressionEndedChange))
                 {
-                    queue.Writer.TryWrite(notification);
+                    foreach (var (_, queue) in queues)
+                    {
+                        queue.Writer.TryWrite(notification);
+                    }
                 }
                 _metrics.AlertsActive.Set(ActiveCount());
             }
@@ -161,7 +191,7 @@ internal sealed class AlertDispatchService : BackgroundService, IAlertCommands
     {
         lock (_bookGate)
         {
-            return _book.Current.Count;
+            return _book.Current.Values.Count(a => a.State != AlertState.Suppressed);
         }
     }
 

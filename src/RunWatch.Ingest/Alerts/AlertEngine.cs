@@ -82,6 +82,11 @@ internal sealed class AlertEngine(ChamberRegistryHolder registry, TimeProvider t
         {
             alarms.ChannelSetpointC = chamber.GrowthTemperature?.Calibration.ToTrueC(s.Value) ?? s.Value;
         }
+        else if (chamber.GrowthShutter?.ChannelId == s.ChannelId)
+        {
+            // State-based alarming: an open growth shutter is the Growth state, where deviation alarms always apply.
+            alarms.Monitor.SetGrowth(s.Value >= chamber.Options.Runs.ShutterOpenAtOrAbove, Seconds(s.TimestampUs));
+        }
         else if (chamber.GrowthTemperature is { } temperature && temperature.ChannelId == s.ChannelId)
         {
             alarms.Monitor.Observe(Seconds(s.TimestampUs), temperature.Calibration.ToTrueC(s.Value), alarms.SetpointC);

@@ -47,7 +47,8 @@ public sealed class ChambersOptions
                     }
                 }
             }
-            foreach (var role in new[] { Storage.ChannelRole.GrowthTemperature, Storage.ChannelRole.Setpoint, Storage.ChannelRole.GrowthShutter })
+            // Every role but Other names one channel: the thermal record, the run detector and the reminders read that one.
+            foreach (var role in Enum.GetValues<Storage.ChannelRole>().Where(r => r != Storage.ChannelRole.Other))
             {
                 if (chamber.Channels.Count(c => c.Role == role) > 1)
                 {

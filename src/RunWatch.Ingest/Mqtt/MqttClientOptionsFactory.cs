@@ -65,21 +65,6 @@ internal static class MqttClientOptionsFactory
     }
 
     /// <summary>Accepts the broker's certificate when it chains to the configured CA and its name matched.</summary>
-    internal static bool ValidateAgainstCa(X509Certificate? certificate, SslPolicyErrors errors, X509Certificate2 ca)
-    {
-        if (errors == SslPolicyErrors.None)
-        {
-            return true;
-        }
-        if (certificate is null || (errors & ~SslPolicyErrors.RemoteCertificateChainErrors) != 0)
-        {
-            return false;
-        }
-        using var chain = new X509Chain();
-        chain.ChainPolicy.TrustMode = X509ChainTrustMode.CustomRootTrust;
-        chain.ChainPolicy.CustomTrustStore.Add(ca);
-        chain.ChainPolicy.RevocationMode = X509RevocationMode.NoCheck;
-        using var leaf = X509CertificateLoader.LoadCertificate(certificate.GetRawCertData());
-        return chain.Build(leaf);
-    }
+    internal static bool ValidateAgainstCa(X509Certificate? certificate, SslPolicyErrors errors, X509Certificate2 ca) =>
+        BrokerCertificate.ChainsToCa(certificate, errors, ca);
 }

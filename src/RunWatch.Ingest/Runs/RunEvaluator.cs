@@ -1,3 +1,4 @@
+using RunWatch.Core.Model.Diffusion;
 using RunWatch.Core.Runs;
 using RunWatch.Core.Thermal;
 using RunWatch.Ingest.Chambers;
@@ -11,8 +12,11 @@ namespace RunWatch.Ingest.Runs;
 /// the excursions of the whole run, each with its effect on L_eff. This class only reads the record from the store
 /// and writes the figures back as the typed <see cref="RunThermalSummary"/> and <see cref="RunExcursionRecord"/>s.
 /// </summary>
-internal sealed class RunEvaluator(IRunWatchStore store, IRunDiffusivity? diffusivitySource = null)
+internal sealed class RunEvaluator(IRunWatchStore store, IRunDiffusivity? diffusivitySource = null, IRunDiffusionModels? diffusionModels = null)
 {
+    /// <summary>Fixed seed of the simulated wire sites: the same run and model give the same run-end figures.</summary>
+    private const int EstimateSeed = 20_261_205;
+
     private const int MaxSamples = 5_000_000;
     private readonly IRunDiffusivity _diffusivity = diffusivitySource ?? new ConfiguredRunDiffusivity();
 
@@ -59,10 +63,13 @@ internal sealed class RunEvaluator(IRunWatchStore store, IRunDiffusivity? diffus
         foreach (var (e, inWindow, changeUm) in evaluation.Excursions)
         {
             excursions.Add(new RunExcursionRecord(origin.AddSeconds(e.StartS), origin.AddSeconds(e.EndS), e.DurationS, e.PeakDeviationK, e.PeakValueC,
-                e.Severity, Finite(changeUm * 1000.0), e.Closed, inWindow));
+                e.Severity, Finite(changeUm * 1000.0), e.Closed, inWindow, e.SuppressedByDesign));
         }
         var summary = new RunThermalSummary(result.ConventionFactor, result.IntegralCmSq, result.CoveredS, window.StartS, window.EndS, result.Gaps.Count,
-            result.IsComplete, Finite(result.LogSensitivityPerK), readings.Count, plan is not null, null);
+            result.IsComplete, Finite(result.LogSensitivityPerK), readings.Count, plan is not null, null)
+        {
+            Diffusion = await DiffusionFiguresAsync(run, record, calibration, window, setpointC, evaluation, cancellationToken).ConfigureAwait(false),
+        };
         return run with
         {
             SetpointC = run.SetpointC ?? setpointC,
@@ -73,6 +80,52 @@ internal sealed class RunEvaluator(IRunWatchStore store, IRunDiffusivity? diffus
             Excursions = excursions,
             Summary = summary,
         };
+    }
+
+    /// <summary>
+    /// The accepted diffusion model's run-end figures for the run's process (its recipe), or null when the process has
+    /// none accepted. A failure is recorded in the figures, never thrown: the run's other figures still stand.
+    /// </summary>
+    private async Task<RunDiffusionFigures?> DiffusionFiguresAsync(RunRecord run, ThermalRecord record, TemperatureCalibration calibration,
+        GrowthWindow window, double? setpointC, RunThermalEvaluation evaluation, CancellationToken cancellationToken)
+    {
+        if (diffusionModels is null || string.IsNullOrWhiteSpace(run.Recipe))
+        {
+            return null;
+        }
+        if (await diffusionModels.AcceptedForAsync(run.Recipe, cancellationToken).ConfigureAwait(false) is not { } accepted)
+        {
+            return null;
+        }
+        if (setpointC is not { } setpoint)
+        {
+            return new RunDiffusionFigures(accepted.Id, null, null, null, null, false, [], "the run has no setpoint (announced or logged)");
+        }
+        var spans = new List<GrowthWindow>();
+        foreach (RunExcursionEffect e in evaluation.Excursions)
+        {
+            if (e.InGrowthWindow)
+            {
+                spans.Add(new GrowthWindow(e.Summary.StartS, e.Summary.EndS));
+            }
+        }
+        try
+        {
+            // Seconds of CPU on a 12 µm field: off the caller's thread, once per closed run.
+            RunEndEstimate estimate = await Task.Run(() => RunEndEstimator.Estimate(accepted.Params.Model, record, calibration, window, setpoint, spans,
+                accepted.Params.WireDensityPerUm2, EstimateSeed), cancellationToken).ConfigureAwait(false);
+            var changes = new List<RunExcursionRadiusChange>(estimate.Excursions.Count);
+            foreach (ExcursionRadiusEffect x in estimate.Excursions)
+            {
+                changes.Add(new RunExcursionRadiusChange(x.Excursion.StartS, x.Excursion.EndS, Finite(x.MeanRadiusChangeNm), Finite(x.LambdaEffChangeUm * 1000.0)));
+            }
+            return new RunDiffusionFigures(accepted.Id, Finite(estimate.LambdaAtSetpointUm * 1000.0), Finite(estimate.LambdaEffUm * 1000.0),
+                Finite(estimate.MeanRadiusNm), Finite(estimate.RadiusSdNm), estimate.Extrapolated, changes, null);
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
+        {
+            return new RunDiffusionFigures(accepted.Id, null, null, null, null, false, [], "the run-end estimate failed: " + ex.Message);
+        }
     }
 
     /// <summary>The growth window: first shutter opening to its last closing inside the run, or the whole run without shutter data.</summary>

@@ -7,8 +7,9 @@ namespace RunWatch.Simulation.Demo;
 
 /// <summary>
 /// Makes the SEM fields of a demo wafer (invented data): random nucleation sites, each wire's capture zone at the
-/// run's effective diffusion length, its radius from <see cref="DemoGrowthModel"/>, drawn as a top-down SEM image
-/// with a sidecar naming the wafer and the pixel size.
+/// run's effective diffusion length, its radius from <see cref="DemoGrowthModel"/>, drawn as a top-down SEM image by
+/// <see cref="MicroscopeFieldGenerator"/> (edge rims, shot noise, drift, a drawn information strip) with a sidecar
+/// naming the wafer and the pixel size.
 /// </summary>
 public static class DemoWaferFields
 {
@@ -53,20 +54,36 @@ public static class DemoWaferFields
                 sides[i] = r / PixelNm * Math.Sqrt(2 * Math.PI / (3 * Math.Sqrt(3)));
                 pixelSites[i] = (sites[i].X / PixelNm, sites[i].Y / PixelNm);
             }
-            SemField field = SemFieldGenerator.Generate(new SemFieldSpec
+            // Drawn as the microscope makes it: edge rims, shot noise, jitter, drift, texture, a few tilted wires and crystallites.
+            var objects = new List<MicroscopeObject>(sites.Length + 16);
+            double meanRadius = 0;
+            for (int i = 0; i < sites.Length; i++)
+            {
+                meanRadius += sides[i] * 0.909 / sites.Length;
+            }
+            int crystallites = Math.Max(1, sites.Length / 200);
+            for (int c = 0; c < crystallites; c++)
+            {
+                objects.Add(MicroscopeScene.RandomCrystallite(random, meanRadius) with { X = random.NextDouble() * Width, Y = random.NextDouble() * (Height - Strip) });
+            }
+            for (int i = 0; i < sites.Length; i++)
+            {
+                objects.Add(random.NextDouble() < 0.03
+                    ? new MicroscopeObject { Kind = SemObjectKind.Tilted, X = pixelSites[i].X, Y = pixelSites[i].Y, Size = 0.8 * sides[i], Length = sides[i] * (3 + (3 * random.NextDouble())), AngleDeg = random.NextDouble() * 360 }
+                    : new MicroscopeObject { Kind = SemObjectKind.Vertical, X = pixelSites[i].X, Y = pixelSites[i].Y, Size = sides[i], AngleDeg = random.NextDouble() * 60 });
+            }
+            MicroscopeField field = MicroscopeFieldGenerator.Generate(new MicroscopeFieldSpec
             {
                 Width = Width,
                 Height = Height,
                 PixelSizeNm = PixelNm,
                 Seed = fieldSeed,
-                Sites = pixelSites,
-                SideOfSite = i => sides[i],
-                InfoStripRows = Strip,
-                TiltedFraction = 0.03,
-                ParasiticPerThousandSites = 5,
+                Objects = objects,
+                StripRows = Strip,
+                ScaleBarNm = 1000,
             });
             string path = Path.Combine(folder, $"{waferId}_field{f + 1:00}.png");
-            SemFieldWriter.Write(field, path, sidecar: true, waferId: waferId, position: new FieldPosition(-20 + (10 * f), 5 * (f % 2)));
+            MicroscopeFieldWriter.Write(field, path, waferId: waferId, position: new FieldPosition(-20 + (10 * f), 5 * (f % 2)));
             paths.Add(path);
         }
         return paths;

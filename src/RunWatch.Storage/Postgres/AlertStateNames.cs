@@ -10,6 +10,7 @@ internal static class AlertStateNames
         AlertState.Acknowledged => "acknowledged",
         AlertState.ReturnedUnacknowledged => "returned-unacknowledged",
         AlertState.Shelved => "shelved",
+        AlertState.Suppressed => "suppressed",
         _ => throw new ArgumentOutOfRangeException(nameof(state), state, null),
     };
 
@@ -20,6 +21,7 @@ internal static class AlertStateNames
         "acknowledged" => AlertState.Acknowledged,
         "returned-unacknowledged" => AlertState.ReturnedUnacknowledged,
         "shelved" => AlertState.Shelved,
+        "suppressed" => AlertState.Suppressed,
         _ => throw new InvalidDataException("Unknown alert state in store: " + name),
     };
 }

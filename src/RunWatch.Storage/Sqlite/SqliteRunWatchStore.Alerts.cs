@@ -183,6 +183,7 @@ public sealed partial class SqliteRunWatchStore
         AlertState.Acknowledged => "acknowledged",
         AlertState.ReturnedUnacknowledged => "returned-unacknowledged",
         AlertState.Shelved => "shelved",
+        AlertState.Suppressed => "suppressed",
         _ => throw new ArgumentOutOfRangeException(nameof(state), state, null),
     };
 
@@ -192,6 +193,7 @@ public sealed partial class SqliteRunWatchStore
         "unacknowledged" => AlertState.Unacknowledged,
         "acknowledged" => AlertState.Acknowledged,
         "returned-unacknowledged" => AlertState.ReturnedUnacknowledged,
+        "suppressed" => AlertState.Suppressed,
         "shelved" => AlertState.Shelved,
         _ => throw new InvalidDataException("Unknown alert state in store: " + name),
     };

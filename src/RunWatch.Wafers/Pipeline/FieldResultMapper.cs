@@ -26,9 +26,10 @@ internal static class FieldResultMapper
                 w.EquivalentRadius,
                 w.Class == WireClass.Vertical,
                 !w.TouchesBorder,
-                w.ZoneGuarded == false ? w.CentroidZoneNormalized : null));
+                w.ZoneGuarded == false ? w.CentroidZoneNormalized : null,
+                w.DropletRadius));
         }
-        double analysedHeightPx = analysis.Height - analysis.ExcludedBottomRows;
+        double analysedHeightPx = analysis.Height - analysis.ExcludedBottomRows - analysis.ExcludedTopRows;
         double areaCm2 = analysis.Width * nmPerPx * analysedHeightPx * nmPerPx * 1e-14;
         return new FieldResult
         {

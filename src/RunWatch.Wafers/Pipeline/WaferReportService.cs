@@ -179,7 +179,8 @@ public sealed class WaferReportService
             ["csv"] = written.CsvPath,
             ["json"] = written.JsonPath,
         };
-        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce));
+        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce,
+            evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null));
         string verdict = verdictInForce.Outcome.ToString().ToLowerInvariant();
         foreach (var (format, path) in files)
         {

@@ -51,6 +51,10 @@ public static class DashboardApi
         api.MapGet("/fields/{fieldId}/image", async (string fieldId, bool? overlay, IDashboardQueries q, CancellationToken ct) =>
             await q.GetFieldImageAsync(fieldId, overlay ?? false, ct) is { } image ? Results.File(image.Content, image.ContentType) : Results.NotFound());
         api.MapGet("/alerts", (IDashboardQueries q, CancellationToken ct) => q.GetAlertsAsync(ct));
+        api.MapGet("/export/runs.csv", async (IDashboardQueries q, CancellationToken ct) =>
+            Results.Text(CsvExport.Runs(await q.GetRunsAsync(ct)), "text/csv; charset=utf-8"));
+        api.MapGet("/export/alerts.csv", async (IDashboardQueries q, CancellationToken ct) =>
+            Results.Text(CsvExport.Alerts(await q.GetAlertsAsync(ct)), "text/csv; charset=utf-8"));
 
         var act = api.MapGroup("").RequireAuthorization(DashboardRoles.CanActPolicy);
         act.MapPost("/alerts/{alertId}/acknowledge", (string alertId, CommentRequest body, ClaimsPrincipal user, IDashboardCommands c, CancellationToken ct) =>

@@ -8,4 +8,7 @@ public enum AlertState
     ReturnedUnacknowledged,
     Shelved,
     Normal,
+
+    /// <summary>Condition active in a state where the alarm is suppressed by design (a ramp): recorded, not raised, nothing to do.</summary>
+    Suppressed,
 }

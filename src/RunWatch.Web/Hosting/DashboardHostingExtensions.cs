@@ -53,8 +53,10 @@ public static partial class DashboardHostingExtensions
         services.TryAddSingleton<LiveUpdateHub>();
         services.TryAddSingleton<ITelemetryNotifier>(sp => sp.GetRequiredService<LiveUpdateHub>());
         services.TryAddSingleton(sp => ReminderRuleSet.WithThresholds(DefaultReminders.All, sp.GetRequiredService<IOptions<DashboardOptions>>().Value.ReminderThresholds));
+        services.TryAddSingleton<ReminderBindings>();
         services.TryAddSingleton<ReminderMonitor>();
         services.TryAddSingleton<ReminderRuleEditor>();
+        services.AddHealthChecks().AddCheck<ReminderCoverageHealthCheck>("reminders");
         services.TryAddSingleton(sp =>
         {
             var directory = new UserDirectory();

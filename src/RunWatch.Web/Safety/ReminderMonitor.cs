@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using Microsoft.Extensions.Options;
 using RunWatch.Core.Safety;
 using RunWatch.Web.Data;
 
@@ -8,19 +9,23 @@ namespace RunWatch.Web.Safety;
 /// Evaluates the reminder rules on a chamber's status and records in the audit log each time a reminder is shown
 /// to a user: once per user for each stretch of time in which the reminder's condition holds.
 /// </summary>
-public sealed class ReminderMonitor(ReminderRuleSet rules, IDashboardCommands commands, DashboardClock clock)
+public sealed class ReminderMonitor(ReminderRuleSet rules, IDashboardCommands commands, DashboardClock clock, ReminderBindings bindings,
+    IOptions<DashboardOptions> options)
 {
     private readonly ConcurrentDictionary<(string Chamber, string Rule), long> _activation = new();
     private readonly ConcurrentDictionary<(string Chamber, string Rule, string User, long Activation), byte> _logged = new();
     private long _nextActivation;
 
     /// <summary>The reminders that hold now for one chamber.</summary>
-    public IReadOnlyList<ActiveReminder> Evaluate(ChamberStatus chamber)
+    public IReadOnlyList<ActiveReminder> Evaluate(ChamberStatus chamber) => Assess(chamber).Active;
+
+    /// <summary>The reminders that hold now for one chamber, and those not watched on it (role without channel, or channel stale).</summary>
+    public ReminderAssessment Assess(ChamberStatus chamber)
     {
         ArgumentNullException.ThrowIfNull(chamber);
-        var state = new LiveChamberState(chamber.Chamber, clock.Now, chamber.LastSampleAt, chamber.LatestValues,
-            chamber.ActiveRun is not null, chamber.LastRunEndedAt);
-        var active = ReminderEvaluator.Evaluate(rules.Rules, state);
+        var state = StateOf(chamber);
+        var assessment = ReminderEvaluator.Assess(rules.Rules, state);
+        var active = assessment.Active;
         foreach (var rule in rules.Rules)
         {
             bool holds = active.Any(a => a.Rule.Id == rule.Id);
@@ -33,7 +38,16 @@ public sealed class ReminderMonitor(ReminderRuleSet rules, IDashboardCommands co
                 _activation.TryRemove((chamber.Chamber, rule.Id), out _);
             }
         }
-        return active;
+        return assessment;
+    }
+
+    /// <summary>The evaluator's input for a chamber: its latest values and the channel each role reads there.</summary>
+    public LiveChamberState StateOf(ChamberStatus chamber)
+    {
+        ArgumentNullException.ThrowIfNull(chamber);
+        return new LiveChamberState(chamber.Chamber, clock.Now, chamber.LastSampleAt, chamber.LatestValues,
+            chamber.ActiveRun is not null, chamber.LastRunEndedAt, bindings.Effective(chamber), chamber.LatestTimes,
+            options.Value.ReminderChannelStaleAfter);
     }
 
     /// <summary>Records that the reminders were shown to the user (once per activation).</summary>

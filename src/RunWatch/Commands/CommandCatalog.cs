@@ -14,6 +14,7 @@ internal static class CommandCatalog
         root.Subcommands.Add(ThermalCommand.Create());
         root.Subcommands.Add(ReportCommand.Create());
         root.Subcommands.Add(AnalyzeCommand.Create());
+        root.Subcommands.Add(ModelCommand.Create());
         root.Subcommands.Add(HashPasswordCommand.Create());
         root.Subcommands.Add(BackupCommand.CreateBackup());
         root.Subcommands.Add(BackupCommand.CreateRestore());

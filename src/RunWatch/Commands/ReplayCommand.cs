@@ -1,8 +1,11 @@
 using System.CommandLine;
 using System.Globalization;
+using System.Security.Cryptography;
+using System.Security.Cryptography.X509Certificates;
 using System.Text;
 using MQTTnet;
 using MQTTnet.Protocol;
+using RunWatch.Ingest.Mqtt;
 using RunWatch.Thermal;
 
 namespace RunWatch.Commands;
@@ -23,7 +26,8 @@ internal static class ReplayCommand
         var host = new Option<string>("--host") { Description = "Broker host.", DefaultValueFactory = _ => "127.0.0.1" };
         var port = new Option<int>("--port") { Description = "Broker port.", DefaultValueFactory = _ => 1883 };
         var username = new Option<string?>("--username") { Description = "Broker user name; the password comes from the environment variable RUNWATCH_BROKER_PASSWORD." };
-        var tls = new Option<bool>("--tls") { Description = "Connect with TLS (system trust store)." };
+        var tls = new Option<bool>("--tls") { Description = "Connect with TLS (system trust store, or --ca-file)." };
+        var caFile = new Option<FileInfo?>("--ca-file") { Description = "PEM file of the CA that signed the broker's certificate (implies --tls), as the daemon's Broker:CaFile." };
         var root = new Option<string>("--topic-root") { Description = "First topic level.", DefaultValueFactory = _ => "runwatch" };
         var site = new Option<string>("--site") { Description = "Site (second topic level).", DefaultValueFactory = _ => "lab" };
         var chamber = new Option<string>("--chamber") { Description = "Chamber (third topic level).", DefaultValueFactory = _ => "demo-1" };
@@ -32,7 +36,7 @@ internal static class ReplayCommand
 
         var command = new Command("replay", "Publish a recorded thermal log to the broker as telemetry, for testing and for re-running a past run.")
         {
-            log, speed, host, port, username, tls, root, site, chamber, run, keepTimes,
+            log, speed, host, port, username, tls, caFile, root, site, chamber, run, keepTimes,
         };
         command.SetAction(async (parseResult, cancellationToken) =>
         {
@@ -73,9 +77,32 @@ internal static class ReplayCommand
             {
                 options.WithCredentials(user, Environment.GetEnvironmentVariable("RUNWATCH_BROKER_PASSWORD"));
             }
-            if (parseResult.GetValue(tls))
+            X509Certificate2? ca = null;
+            if (parseResult.GetValue(caFile) is { } caPath)
             {
-                options.WithTlsOptions(o => o.UseTls(true));
+                try
+                {
+                    ca = X509CertificateLoader.LoadCertificateFromFile(caPath.FullName);
+                }
+                catch (Exception ex) when (ex is CryptographicException or IOException or UnauthorizedAccessException)
+                {
+                    await error.WriteLineAsync("--ca-file " + caPath.Name + ": not a readable PEM or DER certificate (" + ex.Message + ")").ConfigureAwait(false);
+                    return 1;
+                }
+            }
+            using var caOwner = ca;
+            if (parseResult.GetValue(tls) || ca is not null)
+            {
+                string target = parseResult.GetRequiredValue(host);
+                options.WithTlsOptions(o =>
+                {
+                    o.UseTls(true);
+                    o.WithTargetHost(target);
+                    if (ca is not null)
+                    {
+                        o.WithCertificateValidationHandler(args => BrokerCertificate.ChainsToCa(args.Certificate, args.SslPolicyErrors, ca));
+                    }
+                });
             }
             try
             {

@@ -57,7 +57,10 @@ public sealed class ExcursionMonitorTests
     [Fact]
     public void Observe_ClearsBeforeAcknowledge_WaitsInReturnedToNormalUnacknowledged()
     {
-        var monitor = new ExcursionMonitor(Options());
+        // Off setpoint from the first sample is a ramp under the state-based rule; this test is about the ISA-18.2 lifecycle.
+        var options = Options();
+        options.DeviationAlarming = DeviationAlarmRule.Always;
+        var monitor = new ExcursionMonitor(options);
         Feed(monitor, 0, 20, 593);
         Feed(monitor, 21, 25, 600);
         Assert.Equal(AlarmState.ReturnedToNormalUnacknowledged, monitor.GetState(AlarmKind.DeviationWarning));
@@ -323,7 +326,10 @@ public sealed class ExcursionMonitorTests
     public void EndRun_OpenExcursion_IsReportedAsNotClosed()
     {
         var observer = new RecordingObserver();
-        var monitor = new ExcursionMonitor(Options(), observer: observer);
+        // Off setpoint from the first sample is a ramp under the state-based rule; this test is about closing at run end.
+        var options = Options();
+        options.DeviationAlarming = DeviationAlarmRule.Always;
+        var monitor = new ExcursionMonitor(options, observer: observer);
         monitor.BeginRun(0);
         Feed(monitor, 0, 30, 610);
         monitor.EndRun(31);

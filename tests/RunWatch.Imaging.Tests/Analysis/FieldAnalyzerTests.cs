@@ -47,7 +47,7 @@ public sealed class FieldAnalyzerTests(ITestOutputHelper output)
         Assert.NotNull(s.WignerBeta);
         // DERIVED: edge zones and wire footprints are disjoint parts of the analysed area; so are centroid zones.
         double analysed = s.AnalysedAreaPixels * 25;
-        Assert.InRange(analysis.Wires.Sum(w => w.EdgeZoneArea!.Value + w.Area), 0.5 * analysed, analysed);
+        Assert.InRange(analysis.Wires.Sum(w => w.EdgeZoneArea!.Value + (w.AreaPixels * 25)), 0.5 * analysed, analysed);
         Assert.InRange(analysis.Wires.Sum(w => w.CentroidZoneArea!.Value), 0.5 * analysed, analysed);
         Assert.All(analysis.Wires.Where(w => w.ZoneGuarded == false), w => Assert.InRange(w.CentroidZoneNormalized!.Value, 0, 1));
         // Density: every object counted by centroid over the analysed area, 5 nm pixels (DERIVED: 1 µm² = 1e-8 cm²).

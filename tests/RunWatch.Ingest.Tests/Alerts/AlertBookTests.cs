@@ -28,6 +28,35 @@ public sealed class AlertBookTests
     }
 
     [Fact]
+    public void Apply_SuppressedByDesignThenCleared_RecordedNeverRaised()
+    {
+        var book = new AlertBook();
+
+        var suppressed = book.Apply(Signal(AlarmState.SuppressedByDesign, 0));
+        var ended = book.Apply(Signal(AlarmState.Normal, 30));
+
+        Assert.Equal((AlertBook.SuppressedChange, AlertState.Suppressed), (suppressed!.Value.Change, suppressed.Value.Alert.State));
+        Assert.Equal(AlertBook.SuppressedDetail, suppressed.Value.Alert.DetailJson);
+        Assert.Equal((AlertBook.SuppressionEndedChange, AlertState.Normal), (ended!.Value.Change, ended.Value.Alert.State));
+        Assert.Null(ended.Value.Alert.AcknowledgedBy);
+        Assert.Equal(AlertBook.SuppressedDetail, ended.Value.Alert.DetailJson);
+        Assert.Empty(book.Current);
+    }
+
+    [Fact]
+    public void Apply_SuppressedThenRaisedAtRampTimeout_RaisedFromThatMoment()
+    {
+        var book = new AlertBook();
+        book.Apply(Signal(AlarmState.SuppressedByDesign, 0));
+
+        var raised = book.Apply(Signal(AlarmState.ActiveUnacknowledged, 120));
+
+        Assert.Equal(("raised", AlertState.Unacknowledged), (raised!.Value.Change, raised.Value.Alert.State));
+        Assert.Equal(T0.AddSeconds(120), raised.Value.Alert.RaisedAt);
+        Assert.Null(raised.Value.Alert.DetailJson);
+    }
+
+    [Fact]
     public void Apply_ReturnToNormalBeforeAcknowledge_StaysUntilAcknowledged()
     {
         var book = new AlertBook();

@@ -36,6 +36,33 @@ public sealed class AlertEngineTests
     }
 
     [Fact]
+    public void OnCommitted_HeatingRampThenHoldExcursion_RampRecordedSuppressedHoldExcursionRaised()
+    {
+        var engine = Engine();
+        // Setpoint 610 °C from the start; the substrate follows as a first-order heater (τ = 60 s) from 200 °C,
+        // the usual model of a heater approaching a stepped setpoint (COMMON PRACTICE, no source).
+        var samples = new List<(double, long, double)> { (0, 11, 610) };
+        for (int s = 0; s < 600; s++)
+        {
+            samples.Add((s, 10, 610 - (410 * Math.Exp(-s / 60.0))));
+        }
+        for (int s = 600; s < 660; s++)
+        {
+            samples.Add((s, 10, s is >= 610 and < 640 ? 590 : 610)); // 20 K low for 30 s in hold
+        }
+
+        engine.OnCommitted(Batches.Of([.. samples]), [], T0);
+
+        var alarm = Drain(engine).Where(x => x.Kind == "deviation-alarm").ToList();
+        Assert.Equal(AlarmState.SuppressedByDesign, alarm[0].To);
+        Assert.Equal(AlarmState.Normal, alarm[1].To);
+        // DERIVED: the alarm condition clears below band − hysteresis = 15 − 1 K (defaults): 410·exp(−t/60) < 14 ⇒ t > 60·ln(410/14) = 202.6 s.
+        Assert.Equal(Math.Ceiling(60 * Math.Log(410 / 14.0)), (alarm[1].At - T0).TotalSeconds);
+        var raised = Assert.Single(alarm, x => x.To == AlarmState.ActiveUnacknowledged);
+        Assert.InRange((raised.At - T0).TotalSeconds, 610, 616);
+    }
+
+    [Fact]
     public void Tick_NoTelemetryDuringAnOpenRun_RaisesStaleTelemetry()
     {
         var engine = Engine();

@@ -35,6 +35,8 @@ internal sealed class StoreUnderTest : IAsyncDisposable
 
     public ISettingsStore Settings => (ISettingsStore)_store;
 
+    public IReminderBindingStore ReminderBindings => (IReminderBindingStore)_store;
+
     public static async Task<StoreUnderTest> CreateAsync(StoreKind kind, Action<StorageOptions>? configure = null)
     {
         if (kind == StoreKind.Sqlite)

@@ -140,6 +140,7 @@ public sealed partial class InMemoryDashboardData
     {
         var c = _chambers[name];
         var latest = new Dictionary<string, double>(StringComparer.Ordinal);
+        var latestTimes = new Dictionary<string, DateTimeOffset>(StringComparer.Ordinal);
         DateTimeOffset? lastAt = null;
         foreach (var ((chamber, channel), buffer) in _samples)
         {
@@ -149,6 +150,7 @@ public sealed partial class InMemoryDashboardData
             }
             latest[channel] = point.Value;
             var at = DateTimeOffset.FromUnixTimeMilliseconds((long)Math.Round(point.Time * 1000));
+            latestTimes[channel] = at;
             if (lastAt is null || at > lastAt)
             {
                 lastAt = at;
@@ -166,6 +168,7 @@ public sealed partial class InMemoryDashboardData
             LastRunEndedAt = lastEnded,
             OpenAlerts = open,
             LatestValues = latest,
+            LatestTimes = latestTimes,
         };
     }
 }

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using RunWatch.Core.Safety;
 using RunWatch.Web.Data;
 
 namespace RunWatch.Testing.Dashboard;
@@ -28,10 +29,19 @@ public static class InventedLabScenario
     {
         ArgumentNullException.ThrowIfNull(data);
         var bands = new TemperatureBands(3, 8);
+        // Both invented chambers map three reminder roles; hydride flow, bake-out and the electron gun have no channel
+        // here, so their reminders show as "not watched on this chamber".
+        var roles = new Dictionary<ReminderChannelRole, string>
+        {
+            [ReminderChannelRole.GrowthTemperature] = TemperatureChannel,
+            [ReminderChannelRole.ArsenicSourceTemperature] = "as_cell_tc",
+            [ReminderChannelRole.CryopanelFill] = "ln2_fill",
+        };
+        string[] channels = [TemperatureChannel, SetpointChannel, "as_cell_tc", "ga_shutter", "ln2_fill"];
         data.AddChamber(new ChamberStatus(GrowingChamber, "invented lab", null, null, TemperatureChannel, SetpointChannel, "°C", null, null, null, 0,
-            new Dictionary<string, double>(), bands));
+            new Dictionary<string, double>(), bands, ConfiguredRoles: roles, Channels: channels));
         data.AddChamber(new ChamberStatus(IdleChamber, "invented lab", null, null, TemperatureChannel, SetpointChannel, "°C", null, null, null, 0,
-            new Dictionary<string, double>(), bands));
+            new Dictionary<string, double>(), bands, ConfiguredRoles: roles, Channels: channels));
 
         // Ended run: ramp up, growth at 610 °C with one excursion, cool-down; it ends 40 min before now.
         var endedEnd = now.AddMinutes(-40);
@@ -63,7 +73,7 @@ public static class InventedLabScenario
 
         data.AddRun(new RunDetail(
             new RunSummary(EndedRun, IdleChamber, "nw-gaas-std", endedStart, endedEnd, 610, growthEnd - growthStart,
-                new GrowthWindow(growthStart, growthEnd), [Wafer], 1, "review"),
+                new GrowthWindow(growthStart, growthEnd), [Wafer], 1, "review", LEffNm: 418.6),
             new ThermalResult(LNomNm: 412.0, LEffNm: 418.6, TEffC: 611.1, ConventionFactor: 1, CoveragePercent: 99.8, D0CmSquaredPerSecond: 2.5e-5, ActivationEnergyEv: 1.3),
             [new ExcursionView(excursionStart, excursionEnd, 9.0, AlertSeverity.Alarm, 1.1)],
             new RadiusPrediction(38.5, 6.2, 28.3, 48.7), TemperatureChannel));
@@ -73,7 +83,7 @@ public static class InventedLabScenario
             null, [], new RadiusPrediction(37.9, 6.0, 28.0, 47.8), TemperatureChannel));
         data.AddRun(new RunDetail(
             new RunSummary("R-2029", IdleChamber, "nw-gaas-thin", now.AddDays(-1).AddHours(-2), now.AddDays(-1), 590, TimeSpan.FromMinutes(45),
-                new GrowthWindow(now.AddDays(-1).AddHours(-1.5), now.AddDays(-1).AddHours(-0.75)), ["W-2029-A"], 0, "pass"),
+                new GrowthWindow(now.AddDays(-1).AddHours(-1.5), now.AddDays(-1).AddHours(-0.75)), ["W-2029-A"], 0, "pass", LEffNm: 299.1),
             new ThermalResult(300.2, 299.1, 589.7, 1, 100, 2.5e-5, 1.3), [], new RadiusPrediction(28.0, 4.1, 21.3, 34.7), TemperatureChannel));
 
         SeedWafer(data, now);
@@ -83,6 +93,9 @@ public static class InventedLabScenario
             AlertState.ActiveAcknowledged, now.AddMinutes(-15), null, "demo-engineer", "cell re-tuned, watching", null, null));
         data.AddAlert(new AlertView("A-0105", GrowingChamber, "R-2029", "Telemetry gap of 12 s", AlertSeverity.Warning,
             AlertState.Normal, now.AddDays(-1).AddHours(-1), now.AddDays(-1).AddHours(-1).AddSeconds(12), "demo-engineer", "gateway restart", null, null));
+        // The heating ramp of the active run: a deviation recorded while suppressed by design, never raised.
+        data.AddAlert(new AlertView("A-0108", GrowingChamber, ActiveRun, "Deviation beyond the alarm band (412.0 °C, setpoint 610.0 °C)", AlertSeverity.Alarm,
+            AlertState.Normal, now.AddMinutes(-25), now.AddMinutes(-21), null, null, null, null, WasSuppressed: true));
         data.AddSpec(new SpecEntry("mean radius", 30, 45, "nm"));
         data.AddSpec(new SpecEntry("radius CV", null, 0.2, "fraction", Sides: SpecSides.Upper));
         data.AddSpec(new SpecEntry("density", 0.5, 3, "µm⁻²"));
@@ -110,7 +123,14 @@ public static class InventedLabScenario
             data.AddFieldImage(id, true, FieldSvg(f, true));
         }
         data.AddWafer(new WaferDetail(Wafer, EndedRun, fields, new WaferStatistics(240, 1.42, 38.9, 6.8, 1.18, 0.71), wires,
-            new VerdictView(VerdictOutcome.Review, ["an alarm excursion of 9.0 K lasted 3 min during growth (effect on L_eff +1.1 %)", "mean radius 38.9 nm within spec 30–45 nm", "radius CV 0.17 within spec ≤ 0.2"], now.AddMinutes(-10)),
+            new VerdictView(VerdictOutcome.Review, ["an alarm excursion of 9.0 K lasted 3 min during growth (effect on L_eff +1.1 %)", "mean radius 38.9 nm within spec 30–45 nm", "radius CV 0.17 within spec ≤ 0.2"], now.AddMinutes(-10),
+                [
+                    new VerdictRuleView("mean radius", 38.9, "30–45", "33–42", "nm", VerdictOutcome.Pass, "38.9 nm within 30–45 nm"),
+                    new VerdictRuleView("radius CV", 0.17, "≤ 0.2", "≤ 0.18", "fraction", VerdictOutcome.Pass, "0.17 within ≤ 0.2"),
+                    new VerdictRuleView("excursions in growth window", 1, "≤ 2", "≤ 0", "count", VerdictOutcome.Review, "one alarm excursion of 9.0 K during growth"),
+                    new VerdictRuleView("|prediction bias|", null, "≤ 4", "≤ 2", "nm", VerdictOutcome.Review, "not measured: no accepted radius model for this process yet"),
+                ],
+                new PredictionAgreement(240, 0.8, 3.1, 0.71, 2.4)),
             ["html", "csv", "json"]));
         string csv = "wire,radius_nm,capture_area_norm,predicted_nm\n" + string.Join('\n', wires.Select((w, i) =>
             string.Create(CultureInfo.InvariantCulture, $"{i + 1},{w.RadiusNm:F2},{w.NormalisedCaptureArea:F4},{w.PredictedRadiusNm:F2}"))) + "\n";

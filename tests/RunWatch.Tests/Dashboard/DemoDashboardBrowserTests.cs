@@ -84,7 +84,8 @@ public sealed partial class DemoDashboardBrowserTests(DemoFixture demo, ITestOut
     [Fact]
     public async Task Alerts_EngineerAcknowledgesDemoAlertWithComment_RecordedWithName()
     {
-        await demo.WaitAllReportedAsync();
+        // The demo's own ramps raise nothing (suppressed by design); a hold excursion played into it does.
+        await demo.PlayRampAndHoldExcursionAsync();
         var page = await demo.LoginAsync("engineer");
         await page.GotoAsync(demo.BaseUrl + "/alerts");
         var actionable = page.Locator("[data-testid=alert-row]:has([data-testid=acknowledge])");
@@ -92,7 +93,7 @@ public sealed partial class DemoDashboardBrowserTests(DemoFixture demo, ITestOut
         await demo.ScreenshotAsync(page, "alerts");
         var row = actionable.First;
         string alertId = (await row.GetAttributeAsync("data-alert"))!;
-        const string Comment = "seen; demo ramp overshoot, no action needed";
+        const string Comment = "seen; hold excursion played by the test, no action needed";
         await row.Locator("[data-testid=comment]").FillAsync(Comment);
         await row.Locator("[data-testid=acknowledge]").ClickAsync();
 
@@ -145,7 +146,7 @@ public sealed partial class DemoDashboardBrowserTests(DemoFixture demo, ITestOut
     [Fact]
     public async Task Alerts_PrintedViewer_WriteActionDisabledAndApiRefused403()
     {
-        await demo.WaitAllReportedAsync();
+        await demo.PlayRampAndHoldExcursionAsync();
         var page = await demo.LoginAsync("viewer");
         await page.GotoAsync(demo.BaseUrl + "/alerts");
         var rows = page.Locator("[data-testid=alert-row]:has([data-testid=shelve])");

@@ -22,7 +22,8 @@ public sealed class ReminderRuleEditorTests : IDisposable
     /// <summary>Substrate at 180 °C, no run: is the venting reminder shown?</summary>
     private static bool VentReminderHolds(ReminderRuleSet rules) =>
         ReminderEvaluator.Evaluate(rules.Rules, new LiveChamberState("c1", DateTimeOffset.UtcNow, DateTimeOffset.UtcNow,
-            new Dictionary<string, double> { ["substrate_tc"] = 180 }, false, null)).Any(a => a.Rule.Id == VentRule);
+            new Dictionary<string, double> { ["substrate_tc"] = 180 }, false, null,
+            new Dictionary<ReminderChannelRole, string> { [ReminderChannelRole.GrowthTemperature] = "substrate_tc" })).Any(a => a.Rule.Id == VentRule);
 
     [Fact]
     public async Task UpdateThresholdAsync_Admin_ReminderUsesNewThresholdAlsoAfterRestart()

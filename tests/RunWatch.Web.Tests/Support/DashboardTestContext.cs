@@ -36,6 +36,7 @@ internal sealed class DashboardTestContext : BunitContext
         Services.AddSingleton<IOptions<DashboardOptions>>(Options.Create(new DashboardOptions { TimeZone = "UTC" }));
         Services.AddSingleton<DashboardClock>();
         Services.AddSingleton(new ReminderRuleSet(DefaultReminders.All));
+        Services.AddSingleton<ReminderBindings>();
         Services.AddSingleton<ReminderMonitor>();
         Services.AddSingleton<ReminderRuleEditor>();
         Services.AddSingleton(new RunWatch.Web.Security.UserDirectory());

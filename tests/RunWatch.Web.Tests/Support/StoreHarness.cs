@@ -71,8 +71,8 @@ internal sealed class StoreHarness : IDisposable
     /// <summary>Alert commands are not exercised here.</summary>
     private sealed class NoAlertCommands : IAlertCommands
     {
-        public Task<bool> AcknowledgeAsync(long alertId, string user, CancellationToken cancellationToken) => Task.FromResult(false);
+        public Task<bool> AcknowledgeAsync(long alertId, string user, string? comment, CancellationToken cancellationToken) => Task.FromResult(false);
 
-        public Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, CancellationToken cancellationToken) => Task.FromResult(false);
+        public Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, string? comment, CancellationToken cancellationToken) => Task.FromResult(false);
     }
 }

@@ -95,7 +95,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             summary = summary with { Verdict = verdicts.TryGetValue(run.Id, out string? v) ? v : null };
             prediction = await wafers.GetRunPredictionAsync(run.Id, cancellationToken).ConfigureAwait(false);
         }
-        return new RunDetail(summary, thermal, Excursions(run.Excursions, run.LEffNm), prediction, channel);
+        return new RunDetail(summary, thermal, Excursions(run.Excursions, run.LEffNm), prediction, channel) { Diffusion = run.Summary?.Diffusion };
     }
 
     public Task<WaferDetail?> GetWaferAsync(string waferId, CancellationToken cancellationToken) =>
@@ -124,7 +124,8 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
                 return new AlertView(id, a.Chamber ?? "daemon",
                     a.RunId is { } r && runs.TryGetValue(r, out var name) ? name : null, a.Message,
                     a.Severity == Storage.AlertSeverity.High ? AlertSeverity.Alarm : AlertSeverity.Warning, Map(a.State), a.RaisedAt, a.ClearedAt,
-                    a.AcknowledgedBy, comments.TryGetValue(CommentSubject + id, out string? comment) ? comment : null, null, null);
+                    a.AcknowledgedBy, comments.TryGetValue(CommentSubject + id, out string? comment) ? comment : null, null, null,
+                    a.DetailJson is { } detail && detail.Contains("\"suppressedByDesign\":true", StringComparison.Ordinal));
             })
             .ToList();
     }
@@ -158,22 +159,22 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
     public async Task AcknowledgeAlertAsync(string alertId, string user, string comment, CancellationToken cancellationToken)
     {
         long id = ParseId(alertId);
-        if (!await alerts.AcknowledgeAsync(id, user, cancellationToken).ConfigureAwait(false))
+        // One audit entry per acknowledgement: the alert commands write it with the comment in it.
+        if (!await alerts.AcknowledgeAsync(id, user, string.IsNullOrWhiteSpace(comment) ? null : comment, cancellationToken).ConfigureAwait(false))
         {
             throw new InvalidOperationException($"Alert {alertId} is unknown or has nothing to acknowledge.");
         }
-        await RecordCommentAsync(user, "alert acknowledged", alertId, comment, cancellationToken).ConfigureAwait(false);
     }
 
     public async Task ShelveAlertAsync(string alertId, string user, string comment, DateTimeOffset until, CancellationToken cancellationToken)
     {
         long id = ParseId(alertId);
         var duration = until - time.GetUtcNow();
-        if (duration <= TimeSpan.Zero || !await alerts.ShelveAsync(id, duration, user, cancellationToken).ConfigureAwait(false))
+        if (duration <= TimeSpan.Zero
+            || !await alerts.ShelveAsync(id, duration, user, string.IsNullOrWhiteSpace(comment) ? null : comment, cancellationToken).ConfigureAwait(false))
         {
             throw new InvalidOperationException($"Alert {alertId} is unknown, already normal, or the shelf would not expire in the future.");
         }
-        await RecordCommentAsync(user, "alert shelved", alertId, comment, cancellationToken).ConfigureAwait(false);
     }
 
     public async Task AssignFieldAsync(string fieldId, string waferId, string user, CancellationToken cancellationToken)
@@ -233,20 +234,19 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             JsonSerializer.Serialize(new Dictionary<string, string> { ["detail"] = entry.Detail })), cancellationToken);
     }
 
-    private Task RecordCommentAsync(string user, string action, string alertId, string comment, CancellationToken cancellationToken) =>
-        string.IsNullOrWhiteSpace(comment)
-            ? Task.CompletedTask
-            : RecordAuditAsync(new AuditEntry(time.GetUtcNow(), user, action + CommentSuffix, CommentSubject + alertId, comment), cancellationToken);
-
     /// <summary>The newest operator comment per alert, from the audit trail where acknowledging and shelving write it.</summary>
     private async Task<Dictionary<string, string>> AlertCommentsAsync(CancellationToken cancellationToken)
     {
         var comments = new Dictionary<string, string>(StringComparer.Ordinal);
         foreach (var entry in await store.GetAuditAsync(5000, cancellationToken).ConfigureAwait(false))
         {
-            // Newest first: the first comment seen for an alert is its latest.
-            if (entry.Subject is { } subject && subject.StartsWith(CommentSubject, StringComparison.Ordinal)
-                && entry.Action.EndsWith(CommentSuffix, StringComparison.Ordinal) && !comments.ContainsKey(subject) && entry.DetailJson is { } json)
+            // Newest first: the first comment seen for an alert is its latest. The alert commands write it with the
+            // action ("alert-acknowledged", subject the alert id); older stores have a separate "(comment)" entry.
+            string? subject = entry.Subject is null ? null
+                : entry.Action is "alert-acknowledged" or "alert-shelved" ? CommentSubject + entry.Subject
+                : entry.Subject.StartsWith(CommentSubject, StringComparison.Ordinal) && entry.Action.EndsWith(CommentSuffix, StringComparison.Ordinal) ? entry.Subject
+                : null;
+            if (subject is not null && !comments.ContainsKey(subject) && entry.DetailJson is { } json)
             {
                 using var doc = JsonDocument.Parse(json);
                 if (doc.RootElement.ValueKind == JsonValueKind.Object && doc.RootElement.TryGetProperty("detail", out var detail) && detail.GetString() is { } text)
@@ -262,6 +262,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
     {
         var now = time.GetUtcNow();
         var latest = new Dictionary<string, double>(StringComparer.Ordinal);
+        var latestTimes = new Dictionary<string, DateTimeOffset>(StringComparer.Ordinal);
         DateTimeOffset? lastAt = null;
         foreach (var channel in chamber.Channels)
         {
@@ -273,6 +274,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
                 continue;
             }
             latest[channel.Definition.Name] = rows[^1].Value;
+            latestTimes[channel.Definition.Name] = rows[^1].Timestamp;
             if (lastAt is null || rows[^1].Timestamp > lastAt)
             {
                 lastAt = rows[^1].Timestamp;
@@ -289,8 +291,25 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             latest.TryGetValue(temperature, out double t) ? t : null,
             latest.TryGetValue(setpoint, out double sp) ? sp : open?.SetpointC,
             temperature, setpoint, "°C", lastAt, open is null ? null : ToSummary(open), lastEnded,
-            active.Count(a => a.Chamber == chamber.Definition.Name), latest,
-            bands?.BandsFor(chamber.Definition.Name) ?? new TemperatureBands(options.Value.WarningBandK, options.Value.AlarmBandK));
+            // Open means raised and not over: shelved alerts and conditions suppressed by design are not open.
+            active.Count(a => a.Chamber == chamber.Definition.Name
+                && a.State is StoredAlertState.Unacknowledged or StoredAlertState.Acknowledged or StoredAlertState.ReturnedUnacknowledged), latest,
+            bands?.BandsFor(chamber.Definition.Name) ?? new TemperatureBands(options.Value.WarningBandK, options.Value.AlarmBandK),
+            latestTimes, ReminderRoles(defs), [.. defs.Select(d => d.Name)]);
+    }
+
+    /// <summary>The configured channel of each channel role that a reminder reads (same names in both enums).</summary>
+    private static Dictionary<Core.Safety.ReminderChannelRole, string> ReminderRoles(IEnumerable<ChannelDefinition> channels)
+    {
+        var roles = new Dictionary<Core.Safety.ReminderChannelRole, string>();
+        foreach (var channel in channels)
+        {
+            if (channel.Role != ChannelRole.Other && Enum.TryParse(channel.Role.ToString(), out Core.Safety.ReminderChannelRole role))
+            {
+                roles.TryAdd(role, channel.Name);
+            }
+        }
+        return roles;
     }
 
     private static RunSummary ToSummary(RunRecord r)
@@ -299,7 +318,8 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             ? new GrowthWindow(r.StartedAt.AddSeconds(summary.WindowStartS), r.StartedAt.AddSeconds(summary.WindowEndS))
             : null;
         return new RunSummary(r.Name, r.Chamber, r.Recipe ?? "—", r.StartedAt, r.EndedAt, r.SetpointC ?? double.NaN,
-            TimeSpan.FromSeconds(r.PlannedSeconds ?? 0), window, r.Wafers, r.Excursions?.Count ?? 0, null);
+            // The runs table counts the excursions that matter: inside the growth window and not on a ramp (suppressed by design).
+            TimeSpan.FromSeconds(r.PlannedSeconds ?? 0), window, r.Wafers, r.Excursions?.Count(e => e.InGrowthWindow && !e.SuppressedByDesign) ?? 0, null, r.LEffNm);
     }
 
     private static List<ExcursionView> Excursions(IReadOnlyList<RunExcursionRecord>? excursions, double? lEffNm)
@@ -311,7 +331,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
             list.Add(new ExcursionView(e.Start, e.End, e.PeakDeviationK,
                 e.Severity == RunWatch.Core.Excursions.ExcursionSeverity.Alarm ? AlertSeverity.Alarm : AlertSeverity.Warning,
                 lEffNm is { } l && l > 0 ? changeNm / l * 100 : double.NaN,
-                e.InGrowthWindow));
+                e.InGrowthWindow, e.SuppressedByDesign));
         }
         return list;
     }
@@ -322,6 +342,7 @@ public sealed class StoreDashboardData(IRunWatchStore store, IAlertCommands aler
         StoredAlertState.Acknowledged => Data.AlertState.ActiveAcknowledged,
         StoredAlertState.ReturnedUnacknowledged => Data.AlertState.ReturnedUnacknowledged,
         StoredAlertState.Shelved => Data.AlertState.Shelved,
+        StoredAlertState.Suppressed => Data.AlertState.Suppressed,
         _ => Data.AlertState.Normal,
     };
 

@@ -126,6 +126,8 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         return [.. processes];
     }
 
+    private static VerdictOutcome Outcome(QcOutcome outcome) => outcome switch { QcOutcome.Pass => VerdictOutcome.Pass, QcOutcome.Fail => VerdictOutcome.Fail, _ => VerdictOutcome.Review };
+
     private static (WaferStatistics?, VerdictView?) ReadSummary(string json, DateTimeOffset at)
     {
         WaferReportDigest digest = WaferReportDigestJson.Read(json);
@@ -136,14 +138,20 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         if (digest.Verdict is { } v)
         {
             var reasons = new List<string>();
+            var all = new List<VerdictRuleView>();
             foreach (QcRuleResult rule in v.Rules)
             {
                 if (rule.Outcome != QcOutcome.Pass)
                 {
                     reasons.Add($"{rule.Outcome.ToString().ToLowerInvariant()}: {rule.Reason}");
                 }
+                // Every rule, passed ones included, with what was measured and the limits it was held to.
+                all.Add(new VerdictRuleView(rule.Rule, rule.Measured, rule.Limit, rule.WarnLimit, rule.Unit, Outcome(rule.Outcome), rule.Reason));
             }
-            verdict = new VerdictView(v.Outcome switch { QcOutcome.Pass => VerdictOutcome.Pass, QcOutcome.Fail => VerdictOutcome.Fail, _ => VerdictOutcome.Review }, reasons, at);
+            PredictionAgreement? agreement = digest.Agreement is { } a
+                ? new PredictionAgreement(a.Count, a.BiasNm, a.RmseNm, a.RSquared, a.MeanAbsoluteErrorNm)
+                : null;
+            verdict = new VerdictView(Outcome(v.Outcome), reasons, at, all, agreement);
         }
         return (statistics, verdict);
     }

@@ -66,4 +66,39 @@ public sealed class AlertsTests
         var alert = (await ctx.Data.GetAlertsAsync(CancellationToken.None)).Single(a => a.AlertId == InventedLabScenario.OpenAlert);
         Assert.Equal(AlertState.ActiveUnacknowledged, alert.State);
     }
+
+    [Fact]
+    public void Render_Active_SeverityColumnAndSeparateChamberAndRunLinks()
+    {
+        using var ctx = new DashboardTestContext();
+        var page = ctx.Render<Alerts>();
+
+        var row = page.Find($"[data-alert={InventedLabScenario.OpenAlert}]");
+        Assert.Equal("Alarm", row.GetAttribute("data-severity"));
+        Assert.Contains("ALARM", row.QuerySelector("[data-testid=severity]")!.TextContent, StringComparison.Ordinal);
+        Assert.Equal("chambers/" + InventedLabScenario.IdleChamber, row.QuerySelector("[data-testid=chamber-link]")!.GetAttribute("href"));
+        Assert.StartsWith("runs/", row.QuerySelector("[data-testid=run-link]")!.GetAttribute("href"), StringComparison.Ordinal);
+        // The shelve duration sits in one group with the Shelve button.
+        Assert.NotNull(row.QuerySelector("[data-testid=shelve-group] [data-testid=shelve-hours]"));
+        Assert.NotNull(row.QuerySelector("[data-testid=shelve-group] [data-testid=shelve]"));
+    }
+
+    [Fact]
+    public void Render_SuppressedByDesign_OwnTabNotActiveNotHistoryNoActions()
+    {
+        using var ctx = new DashboardTestContext();
+        var page = ctx.Render<Alerts>();
+        Assert.Empty(page.FindAll("[data-alert=A-0108]"));
+
+        page.Find("[data-testid=tab-suppressed]").Click();
+        var row = page.Find("[data-alert=A-0108]");
+        string text = row.TextContent;
+        bool hasButton = row.QuerySelector("button") is not null;
+        page.Find("[data-testid=tab-history]").Click();
+
+        Assert.Contains("SUPPRESSED BY DESIGN", text, StringComparison.Ordinal);
+        Assert.False(hasButton);
+        Assert.Empty(page.FindAll("[data-alert=A-0108]"));
+        Assert.Contains("Suppressed by design (1)", page.Find("[data-testid=tab-suppressed]").TextContent, StringComparison.Ordinal);
+    }
 }

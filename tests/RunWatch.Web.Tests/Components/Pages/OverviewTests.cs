@@ -51,4 +51,21 @@ public sealed class OverviewTests
         Assert.Contains("1 OPEN ALERT", south.TextContent, StringComparison.Ordinal);
         Assert.Contains("■", south.TextContent, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Render_OpenAlertBadge_TakesHighestOpenSeverity()
+    {
+        using var ctx = new DashboardTestContext();
+        var page = ctx.Render<Overview>();
+
+        // south-2 has an unacknowledged alarm; north-1 only an acknowledged warning (its suppressed ramp record is not open).
+        var south = page.Find("[data-chamber=south-2] [data-testid=open-alerts]");
+        var north = page.Find("[data-chamber=north-1] [data-testid=open-alerts]");
+
+        Assert.Equal("Alarm", south.GetAttribute("data-severity"));
+        Assert.Contains("■", south.TextContent, StringComparison.Ordinal);
+        Assert.Equal("Warning", north.GetAttribute("data-severity"));
+        Assert.Contains("▲", north.TextContent, StringComparison.Ordinal);
+        Assert.Contains("1 OPEN ALERT · WARNING", north.TextContent, StringComparison.Ordinal);
+    }
 }

@@ -35,4 +35,18 @@ public sealed class RunsTests
         page.FindAll("button.sort").Single(b => b.TextContent.StartsWith("Setpoint", StringComparison.Ordinal)).Click();
         Assert.Contains("R-2029", page.FindAll("[data-testid=run-row]")[0].TextContent, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Render_Verdicts_WordShapeAndLeffColumn()
+    {
+        using var ctx = new DashboardTestContext();
+        var page = ctx.Render<Runs>();
+
+        var row = page.FindAll("[data-testid=run-row]").Single(r => r.TextContent.Contains("R-2029", StringComparison.Ordinal));
+
+        var verdict = row.QuerySelector("[data-testid=run-verdict] .state")!;
+        Assert.Equal("normal", verdict.GetAttribute("data-state"));
+        Assert.Contains("● PASS", verdict.TextContent, StringComparison.Ordinal);
+        Assert.Equal("299.1 nm", row.QuerySelector("[data-testid=run-leff]")!.TextContent);
+    }
 }

@@ -54,6 +54,25 @@ public sealed class StoreBackedPagesTests : IDisposable
     }
 
     [Fact]
+    public async Task SaveSpec_FractionShownInPercent_StoredAsFraction()
+    {
+        using var ctx = Context("admin");
+        var page = ctx.Render<Settings>();
+        var cv = page.FindAll("[data-testid=spec-row]").Single(r => r.TextContent.Contains("radius CV", StringComparison.Ordinal) && r.TextContent.Contains("nw-inv", StringComparison.Ordinal));
+        string shown = cv.QuerySelector("[data-testid=spec-max]")!.GetAttribute("value")!;
+        string unit = cv.QuerySelectorAll("td")[6].TextContent;
+
+        cv.QuerySelector("[data-testid=spec-max]")!.Change("40");
+        page.FindAll("[data-testid=spec-row]").Single(r => r.TextContent.Contains("radius CV", StringComparison.Ordinal) && r.TextContent.Contains("nw-inv", StringComparison.Ordinal))
+            .QuerySelector("[data-testid=spec-save]")!.Click();
+
+        // Stored 0.35 is shown as 35 %; 40 % typed is stored as 0.40.
+        Assert.Equal("35", shown);
+        Assert.Equal("%", unit);
+        Assert.Equal(0.40, (await _harness.Catalog.SpecificationForAsync("nw-inv", CancellationToken.None)).MaxRadiusCv!.Value, 12);
+    }
+
+    [Fact]
     public async Task SaveSpec_AdminInvalid_ShowsReasonAndStoreUnchanged()
     {
         using var ctx = Context("admin");

@@ -52,4 +52,25 @@ public sealed class WaferTests
         Assert.Empty(await ctx.Data.GetUnmatchedFieldsAsync(CancellationToken.None));
         Assert.Equal(3, (await ctx.Data.GetWaferAsync(InventedLabScenario.Wafer, CancellationToken.None))!.Fields.Count);
     }
+
+    [Fact]
+    public void Render_Verdict_EveryRuleWithMeasuredLimitAndReason_PredictionSummaryBesideChart()
+    {
+        using var ctx = new DashboardTestContext();
+        var page = ctx.Render<Wafer>(p => p.Add(w => w.WaferId, InventedLabScenario.Wafer));
+
+        var rules = page.FindAll("[data-testid=verdict-rule]");
+        Assert.Equal(4, rules.Count);
+        // Passed rules are listed too, with the measured value and the limit.
+        Assert.Contains("38.9", rules[0].TextContent, StringComparison.Ordinal);
+        Assert.Contains("30–45", rules[0].TextContent, StringComparison.Ordinal);
+        Assert.Contains("PASS", rules[0].TextContent, StringComparison.Ordinal);
+        // A rule that could not be measured says so and why.
+        Assert.Contains("not measured", rules[3].TextContent, StringComparison.Ordinal);
+        Assert.Contains("no accepted radius model", rules[3].TextContent, StringComparison.Ordinal);
+        string summary = page.Find("[data-testid=prediction-summary]").TextContent;
+        Assert.Contains("+0.8 nm", summary, StringComparison.Ordinal);
+        Assert.Contains("3.1 nm", summary, StringComparison.Ordinal);
+        Assert.Contains("0.710", summary, StringComparison.Ordinal);
+    }
 }

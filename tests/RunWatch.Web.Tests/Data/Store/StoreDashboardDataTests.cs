@@ -103,7 +103,7 @@ public sealed class StoreDashboardDataTests : IAsyncLifetime
 
         public (string User, long Id) LastAcknowledged { get; private set; }
 
-        public async Task<bool> AcknowledgeAsync(long alertId, string user, CancellationToken cancellationToken)
+        public async Task<bool> AcknowledgeAsync(long alertId, string user, string? comment, CancellationToken cancellationToken)
         {
             var alert = await Store.GetAlertAsync(alertId, cancellationToken);
             if (alert is null)
@@ -115,6 +115,6 @@ public sealed class StoreDashboardDataTests : IAsyncLifetime
             return true;
         }
 
-        public Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, CancellationToken cancellationToken) => Task.FromResult(false);
+        public Task<bool> ShelveAsync(long alertId, TimeSpan duration, string user, string? comment, CancellationToken cancellationToken) => Task.FromResult(false);
     }
 }
