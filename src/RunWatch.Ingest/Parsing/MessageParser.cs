@@ -430,7 +430,18 @@ internal sealed partial class MessageParser
                 Reject(RejectReason.BadTimestamp, "t is not an ISO-8601 time");
                 return false;
             }
-            text = scratch[..reader.CopyString(scratch)];
+            int copied;
+            try
+            {
+                copied = reader.CopyString(scratch);
+            }
+            catch (InvalidOperationException)
+            {
+                // An escape that is not Unicode ("\udc00"), found by the parser fuzz test.
+                Reject(RejectReason.BadTimestamp, "t is not valid Unicode text");
+                return false;
+            }
+            text = scratch[..copied];
         }
         if (!reader.TryGetDateTimeOffset(out var timestamp) || !HasExplicitOffset(text))
         {

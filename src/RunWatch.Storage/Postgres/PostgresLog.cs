@@ -13,4 +13,10 @@ internal static partial class PostgresLog
 
     [LoggerMessage(EventId = 1102, Level = LogLevel.Information, Message = "Pruned {Samples} samples, {DeadLetters} dead letters, {Alerts} alerts")]
     public static partial void Pruned(ILogger logger, long samples, long deadLetters, long alerts);
+
+    [LoggerMessage(EventId = 1103, Level = LogLevel.Warning, Message = "PostgreSQL commit listener lost its connection; listening again shortly")]
+    public static partial void ListenerFailed(ILogger logger, Exception exception);
+
+    [LoggerMessage(EventId = 1104, Level = LogLevel.Warning, Message = "Unreadable commit notification ignored ({Length} characters)")]
+    public static partial void NotificationUnreadable(ILogger logger, int length);
 }

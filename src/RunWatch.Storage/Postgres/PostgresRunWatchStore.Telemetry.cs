@@ -50,6 +50,10 @@ public sealed partial class PostgresRunWatchStore
             };
             int eventsInserted = await InsertEventsAsync(connection, transaction, batch.Events, cancellationToken).ConfigureAwait(false);
             int deadLetters = await InsertDeadLettersAsync(connection, transaction, batch.DeadLetters, cancellationToken).ConfigureAwait(false);
+            if (inserted > 0)
+            {
+                await NotifyCommittedAsync(connection, transaction, batch, cancellationToken).ConfigureAwait(false);
+            }
             await transaction.CommitAsync(cancellationToken).ConfigureAwait(false);
             return new BatchWriteResult(inserted, batch.SampleCount - inserted, eventsInserted, batch.Events.Count - eventsInserted, deadLetters);
         }

@@ -30,6 +30,8 @@ internal static class RunWatchComposition
         builder.Services.TryAddSingleton<DashboardLiveBridge>();
         builder.Services.AddSingleton<IIngestCommitListener>(sp => sp.GetRequiredService<DashboardLiveBridge>());
         builder.Services.AddSingleton<IAlertListener>(sp => sp.GetRequiredService<DashboardLiveBridge>());
+        // Fleet: samples committed by the other daemons sharing a PostgreSQL store (idle on SQLite).
+        builder.Services.AddHostedService<FleetLiveRelay>();
         return builder;
     }
 

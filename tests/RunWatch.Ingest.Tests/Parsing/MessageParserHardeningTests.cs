@@ -48,6 +48,8 @@ public sealed class MessageParserHardeningTests
     [Theory]
     [InlineData(Event, """{"t":"2026-03-04T10:00:00Z","type":"note","text":"\udc00"}""")]
     [InlineData(Telemetry, """{"t":"2026-03-04T10:00:00Z","values":{"\udc00":1}}""")]
+    [InlineData(Telemetry, """{"t":"2026-03-04T10:00:00\udc00Z","values":{"substrate_tc":1}}""")]
+    [InlineData("runwatch/lab/C1/ch/substrate_tc", """{"t":"\udc00","v":1}""")]
     public void Parse_EscapedLoneSurrogate_NeverAParserFault(string topic, string json)
     {
         Parse(topic, json);
