@@ -48,7 +48,7 @@ public sealed class BackupRestoreTests : IDisposable
 
         await using (var daemon = await StartAsync(_live, brokerPort))
         {
-            await using var publisher = await MqttTestPublisher.ConnectAsync(brokerPort, "backup-publisher");
+            var publisher = await MqttTestPublisher.ConnectAsync(brokerPort, "backup-publisher");
             using var stop = new CancellationTokenSource();
             var ingest = Task.Run(async () =>
             {
@@ -70,6 +70,8 @@ public sealed class BackupRestoreTests : IDisposable
 
             await stop.CancelAsync();
             await ingest;
+            // The publisher leaves before the daemon's embedded broker stops; disconnecting from a stopped broker races its socket close.
+            await publisher.DisposeAsync();
             await daemon.StopAsync();
             Assert.Contains(manifest.Files, f => f.Path == "drop/W-INV-1_f1.png");
         }
