@@ -34,9 +34,9 @@ public sealed partial class DemoLabScreensBrowserTests(DemoFixture demo, ITestOu
         // Wafer list: every demo wafer, with its run and a map link.
         await page.GotoAsync(demo.BaseUrl + "/wafers");
         // Other tests of the collection may add wafers of their own; the demo's three are there with their runs.
-        foreach (var (wafer, run) in new[] { (Wafer, "R-DEMO-01"), ("W-DEMO-01-B", "R-DEMO-01"), ("W-DEMO-02-A", "R-DEMO-02") })
+        foreach (var (wafer, ofRun) in new[] { (Wafer, "R-DEMO-01"), ("W-DEMO-01-B", "R-DEMO-01"), ("W-DEMO-02-A", "R-DEMO-02") })
         {
-            await Assertions.Expect(page.Locator("[data-testid=wafer-row]", new() { HasText = wafer })).ToContainTextAsync(run, new() { Timeout = 20_000 });
+            await Assertions.Expect(page.Locator("[data-testid=wafer-row]", new() { HasText = wafer })).ToContainTextAsync(ofRun, new() { Timeout = 20_000 });
         }
         await CheckAndCaptureAsync(page, "wafers");
         var csv = await page.APIRequest.GetAsync(demo.BaseUrl + "/api/export/wafers.csv");

@@ -84,6 +84,7 @@ public sealed class RunsTests
         page.Find("[data-testid=compare-selected]").Click();
 
         var nav = ctx.Services.GetRequiredService<NavigationManager>();
-        Assert.EndsWith("compare?runs=" + Uri.EscapeDataString($"{InventedLabScenario.EndedRun},R-2029"), nav.Uri, StringComparison.Ordinal);
+        // Oldest first: R-2029 started a day before the ended run.
+        Assert.EndsWith("compare?runs=" + Uri.EscapeDataString($"R-2029,{InventedLabScenario.EndedRun}"), nav.Uri, StringComparison.Ordinal);
     }
 }
