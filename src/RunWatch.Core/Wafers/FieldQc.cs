@@ -1,6 +1,6 @@
-using RunWatch.Core.Wafers;
+using RunWatch.Core.Qc;
 
-namespace RunWatch.Core.Qc;
+namespace RunWatch.Core.Wafers;
 
 /// <summary>
 /// The verdict of one SEM field: the wafer's specification restricted to the rules a single field can be held to
