@@ -54,6 +54,13 @@ public sealed partial class DemoLabScreensBrowserTests(DemoFixture demo, ITestOu
         await Assertions.Expect(page.Locator("[data-testid=radial-fit]")).ToHaveCountAsync(1);
         await Assertions.Expect(page.Locator("[data-testid=map-field-row]").First).ToContainTextAsync("(-20.0, 0.0)");
         await CheckAndCaptureAsync(page, "wafer-map");
+        var waferJson = await page.APIRequest.GetAsync(demo.BaseUrl + "/api/wafers/" + Wafer);
+        var mapJson = await page.APIRequest.GetAsync(demo.BaseUrl + "/api/wafers/" + Wafer + "/map");
+        output.WriteLine("wafer statistics: " + System.Text.Json.JsonDocument.Parse(await waferJson.TextAsync()).RootElement.GetProperty("statistics"));
+        foreach (var f in System.Text.Json.JsonDocument.Parse(await mapJson.TextAsync()).RootElement.GetProperty("fields").EnumerateArray())
+        {
+            output.WriteLine("map field: " + f.GetProperty("fileName") + " " + f.GetProperty("figures"));
+        }
         string fieldHref = (await page.Locator("[data-testid=map-field]").First.GetAttributeAsync("href"))!;
         await page.Locator("[data-testid=map-field]").First.ClickAsync();
         await page.WaitForURLAsync(new Regex("/wafers/" + Wafer + "#field-\\d+$"));
