@@ -35,7 +35,8 @@ public static class Glossary
         ["cv"] = ("Radius CV",
             "Coefficient of variation: sample standard deviation of the wire radii divided by their mean, in percent. Lower is more uniform."),
         ["density"] = ("Density",
-            "Objects found per analysed area, in µm⁻² (1 µm⁻² = 10⁸ cm⁻²)."),
+            "Wires per analysed area, in µm⁻² (1 µm⁻² = 10⁸ cm⁻²). On the wafer map, as the density rule judges it: every object found. "
+            + "In the wafer statistics, the trends and the runs' figures: the wires that enter the radius statistics (vertical, clear of the edges), so it reads a little lower."),
         ["bias"] = ("Prediction bias",
             "Mean of (predicted − measured) radius over the wires compared, in nm: how far the accepted model's prediction sits from what the SEM measured. Positive: the model predicts too large."),
         ["uniformity"] = ("Non-uniformity U",
