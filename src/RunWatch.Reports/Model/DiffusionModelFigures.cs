@@ -7,7 +7,10 @@ namespace RunWatch.Reports.Model;
 /// <param name="ModelFitId">The accepted model record used.</param>
 /// <param name="Model">The model with its profile-likelihood intervals.</param>
 /// <param name="Figures">λ at the mean temperature, λ_eff and the wires predicted.</param>
-public sealed record DiffusionModelFigures(long ModelFitId, DiffusionRadiusModel Model, WaferDiffusionFigures Figures)
+/// <param name="RunEndMeanRadiusNm">The run-end expectation of the mean radius (before SEM, simulated sites), when the run has one.</param>
+/// <param name="RunEndRadiusSdNm">Its wire-to-wire SD.</param>
+public sealed record DiffusionModelFigures(long ModelFitId, DiffusionRadiusModel Model, WaferDiffusionFigures Figures, double? RunEndMeanRadiusNm = null,
+    double? RunEndRadiusSdNm = null)
 {
     /// <summary>Rows of (name, value, 95 % interval, unit) for the model's parameters, with λ at the reference temperature.</summary>
     public IReadOnlyList<(string Name, string Value, string Interval, string Unit)> ParameterRows()

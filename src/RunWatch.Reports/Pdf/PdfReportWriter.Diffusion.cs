@@ -28,6 +28,7 @@ public static partial class PdfReportWriter
             ("Wires predicted", f.PredictedWires.ToString(CultureInfo.InvariantCulture) + " (" + f.GuardedWires.ToString(CultureInfo.InvariantCulture) + " near the field edges left out)"),
             ("Calibrated range", Number(d.Model.CalibratedMinC, "0.0") + " to " + Number(d.Model.CalibratedMaxC, "0.0") + " °C, " + Number(d.Model.CalibratedMinS, "0") + " to "
                 + Number(d.Model.CalibratedMaxS, "0") + " s" + (f.Extrapolated ? "; this wafer lies outside it (extrapolated)" : "")),
+            ("Expected at run end (before SEM)", d.RunEndMeanRadiusNm is { } m ? Number(m, "0.0") + " ± " + Number(d.RunEndRadiusSdNm, "0.0") + " nm (simulated sites)" : "not estimated for this run"),
         ]);
     }
 }

@@ -131,7 +131,7 @@ public sealed class WaferReportService
             CaptureRadiusSearchMax = _options.CaptureRadiusSearchMax,
         }), cancellationToken).ConfigureAwait(false);
         DiffusionModelFigures? diffusionFigures = evaluation.Diffusion is { } applied && diffusion is { } used
-            ? new DiffusionModelFigures(used.Record.Id, used.Params.Model, applied)
+            ? new DiffusionModelFigures(used.Record.Id, used.Params.Model, applied, run?.Summary?.Diffusion?.MeanRadiusNm, run?.Summary?.Diffusion?.RadiusSdNm)
             : null;
         if (evaluation.ModelFittedOnThisWafer && evaluation.Model is not null)
         {
