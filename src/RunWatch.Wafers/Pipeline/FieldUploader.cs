@@ -34,14 +34,14 @@ public sealed class FieldUploader(FieldIntake intake, FieldIntakeService watcher
             return FieldUploadOutcome.Refused(400, "file name refused: " + refusal);
         }
         long limit = MaxBytes;
-        string folder = Path.Combine(watcher.DropFolder, "uploads");
+        string folder = Path.Combine(watcher.DropFolder, FieldFileNameCheck.UploadFolder);
         Directory.CreateDirectory(folder);
         string? path = FieldFileNameCheck.ResolveInside(folder, name);
         if (path is null)
         {
             return FieldUploadOutcome.Refused(400, "file name refused: path leaves the upload folder");
         }
-        string partial = Path.Combine(folder, "." + Guid.NewGuid().ToString("N") + ".partial");
+        string partial = Path.Combine(folder, "." + Guid.NewGuid().ToString("N") + FieldFileNameCheck.UploadPartialSuffix);
         string? sidecarWritten = null;
         bool placed = false;
         try
