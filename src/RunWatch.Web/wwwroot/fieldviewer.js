@@ -32,16 +32,22 @@ function zoomAbout(svg, factor, cx, cy) {
 export function attach(frame, svg, width, height) {
   svg.__rw = { width, height };
   set(svg, { x: 0, y: 0, w: width, h: height });
+  // Opening another field re-uses the same frame: its listeners stay, and always act on the svg inside it now.
+  if (frame.__rwAttached) return;
+  frame.__rwAttached = true;
+  const current = () => frame.querySelector('svg');
   let drag = null;
   let dragged = false;
   frame.addEventListener('wheel', e => {
     e.preventDefault();
-    const p = toSvg(svg, e.clientX, e.clientY);
-    zoomAbout(svg, e.deltaY < 0 ? 1.25 : 0.8, p.x, p.y);
+    const s = current();
+    const p = toSvg(s, e.clientX, e.clientY);
+    zoomAbout(s, e.deltaY < 0 ? 1.25 : 0.8, p.x, p.y);
   }, { passive: false });
   frame.addEventListener('pointerdown', e => {
     if (e.button !== 0) return;
-    drag = { x: e.clientX, y: e.clientY, b: box(svg), scale: 1 / svg.getScreenCTM().a };
+    const s = current();
+    drag = { x: e.clientX, y: e.clientY, b: box(s), scale: 1 / s.getScreenCTM().a };
     dragged = false;
   });
   frame.addEventListener('pointermove', e => {
@@ -49,7 +55,7 @@ export function attach(frame, svg, width, height) {
     const dx = e.clientX - drag.x, dy = e.clientY - drag.y;
     if (!dragged && Math.hypot(dx, dy) < 4) return;
     if (!dragged) { dragged = true; frame.setPointerCapture(e.pointerId); frame.classList.add('dragging'); }
-    set(svg, { x: drag.b.x - dx * drag.scale, y: drag.b.y - dy * drag.scale, w: drag.b.w, h: drag.b.h });
+    set(current(), { x: drag.b.x - dx * drag.scale, y: drag.b.y - dy * drag.scale, w: drag.b.w, h: drag.b.h });
   });
   const end = e => {
     if (drag && dragged && frame.hasPointerCapture(e.pointerId)) frame.releasePointerCapture(e.pointerId);

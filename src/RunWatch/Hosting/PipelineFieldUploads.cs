@@ -12,7 +12,7 @@ namespace RunWatch.Hosting;
 /// kept), the queue's state from the store and the analysis queue, re-analysis through <see cref="FieldIntake"/>
 /// (audited with the user and the reason).
 /// </summary>
-internal sealed class PipelineFieldUploads(FieldUploader uploader, FieldIntake intake, FieldAnalysisQueue queue, IWaferStore wafers) : IFieldPipeline
+internal sealed class PipelineFieldUploads(FieldUploader uploader, FieldIntake intake, FieldAnalysisQueue queue, IWaferStore wafers, IFieldListStore fields) : IFieldPipeline
 {
     public long MaxUploadBytes => uploader.MaxBytes;
 
@@ -52,13 +52,8 @@ internal sealed class PipelineFieldUploads(FieldUploader uploader, FieldIntake i
 
     public async Task<IReadOnlyList<FieldQueueEntry>> GetRecentFieldsAsync(int maxCount, CancellationToken cancellationToken)
     {
-        var all = new List<FieldRecord>();
-        foreach (FieldStatus status in Enum.GetValues<FieldStatus>())
-        {
-            all.AddRange(await wafers.GetFieldsByStatusAsync(status, maxCount, cancellationToken).ConfigureAwait(false));
-        }
         var list = new List<FieldQueueEntry>();
-        foreach (FieldRecord f in all.OrderByDescending(f => f.ImportedAt).ThenByDescending(f => f.Id).Take(maxCount))
+        foreach (FieldRecord f in await fields.GetRecentFieldsAsync(maxCount, cancellationToken).ConfigureAwait(false))
         {
             int? wires = null;
             if (f.Status == FieldStatus.Analysed)
