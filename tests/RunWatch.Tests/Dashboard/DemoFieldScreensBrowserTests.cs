@@ -196,9 +196,10 @@ public sealed partial class DemoFieldScreensBrowserTests(DemoFixture demo, ITest
         await page.Locator("[data-testid=show-zones]").CheckAsync();
         await page.Locator("[data-testid=show-labels]").CheckAsync();
         await Assertions.Expect(page.Locator("[data-testid=zones] polygon").First).ToBeAttachedAsync();
-        Assert.Equal(wires, await page.Locator("[data-testid=labels] text").CountAsync());
+        await Assertions.Expect(page.Locator("[data-testid=labels] text")).ToHaveCountAsync(wires);
         await page.Locator("[data-testid=show-outlines]").UncheckAsync();
-        Assert.Equal(0, await page.Locator("circle.wire-outline[data-testid=wire]").CountAsync());
+        await Assertions.Expect(page.Locator("circle.wire-outline[data-testid=wire]")).ToHaveCountAsync(0);
+        await Assertions.Expect(page.Locator("circle.wire-hit[data-testid=wire]")).ToHaveCountAsync(wires); // still clickable
         await page.Locator("[data-testid=show-outlines]").CheckAsync();
         await page.Locator("[data-testid=zoom-fit]").ClickAsync();
         await page.Locator("[data-testid=show-labels]").UncheckAsync();
