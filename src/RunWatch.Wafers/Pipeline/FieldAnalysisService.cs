@@ -41,7 +41,7 @@ public sealed class FieldAnalysisService(
         }
         await foreach (long fieldId in queue.Reader.ReadAllAsync(stoppingToken).ConfigureAwait(false))
         {
-            queue.Started();
+            queue.Started(fieldId);
             bool ok = false;
             string? wafer = null;
             try
@@ -50,14 +50,14 @@ public sealed class FieldAnalysisService(
             }
             catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
             {
-                queue.Finished(false);
+                queue.Finished(fieldId, false);
                 throw;
             }
             catch (Exception ex) when (ex is IOException or InvalidDataException or JsonException or StoreUnavailableException or InvalidOperationException or ArgumentException)
             {
                 Log.FieldFailed(logger, fieldId, ex.Message);
             }
-            queue.Finished(ok);
+            queue.Finished(fieldId, ok);
             if (wafer is not null && await NothingWaitingAsync(wafer, stoppingToken).ConfigureAwait(false))
             {
                 await WriteReportAsync(wafer, stoppingToken).ConfigureAwait(false);

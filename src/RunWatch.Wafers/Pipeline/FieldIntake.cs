@@ -160,7 +160,11 @@ public sealed class FieldIntake
     }
 
     /// <summary>Re-analyses every field of a wafer, on request (new settings or model). Returns how many were queued.</summary>
-    public async Task<int> ReanalyseWaferAsync(string wafer, string actor, CancellationToken cancellationToken)
+    public Task<int> ReanalyseWaferAsync(string wafer, string actor, CancellationToken cancellationToken) =>
+        ReanalyseWaferAsync(wafer, actor, reason: null, cancellationToken);
+
+    /// <summary>Re-analyses every analysed or failed field of a wafer, audited with who asked and why. Returns how many were queued.</summary>
+    public async Task<int> ReanalyseWaferAsync(string wafer, string actor, string? reason, CancellationToken cancellationToken)
     {
         int queued = 0;
         foreach (FieldRecord field in await _wafers.GetFieldsOfWaferAsync(wafer, cancellationToken).ConfigureAwait(false))
@@ -172,8 +176,30 @@ public sealed class FieldIntake
                 queued++;
             }
         }
-        await _store.AppendAuditAsync(new AuditEntry(_time.GetUtcNow(), actor, "reanalyse-wafer", wafer, null), cancellationToken).ConfigureAwait(false);
+        await _store.AppendAuditAsync(new AuditEntry(_time.GetUtcNow(), actor, "reanalyse-wafer", wafer,
+            string.IsNullOrWhiteSpace(reason) ? null : AuditDetail.Json(reason)), cancellationToken).ConfigureAwait(false);
         return queued;
+    }
+
+    /// <summary>Re-analyses one field on request, audited with who asked and why.</summary>
+    /// <exception cref="KeyNotFoundException">No such field.</exception>
+    /// <exception cref="InvalidOperationException">The field is not analysed or failed (it waits for a wafer, or is queued already).</exception>
+    public async Task<FieldRecord> ReanalyseFieldAsync(long fieldId, string actor, string reason, CancellationToken cancellationToken)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(actor);
+        ArgumentException.ThrowIfNullOrWhiteSpace(reason);
+        FieldRecord field = await _wafers.GetFieldAsync(fieldId, cancellationToken).ConfigureAwait(false)
+            ?? throw new KeyNotFoundException("no field with id " + fieldId);
+        if (field.Status is not (FieldStatus.Analysed or FieldStatus.Failed))
+        {
+            throw new InvalidOperationException(field.Status == FieldStatus.Queued
+                ? $"field {fieldId} is queued for analysis already"
+                : $"field {fieldId} has no wafer yet ({field.Problem ?? "unassigned"}); assign it first");
+        }
+        FieldRecord updated = await _wafers.UpdateFieldAsync(field with { Status = FieldStatus.Queued, Problem = null }, cancellationToken).ConfigureAwait(false);
+        await _store.AppendAuditAsync(new AuditEntry(_time.GetUtcNow(), actor, "reanalyse-field", $"field {fieldId} of wafer {field.Wafer}", AuditDetail.Json(reason)), cancellationToken).ConfigureAwait(false);
+        await _queue.EnqueueAsync(updated.Id, cancellationToken).ConfigureAwait(false);
+        return updated;
     }
 
     private static async Task<string> Sha256Async(string path, CancellationToken cancellationToken)

@@ -166,6 +166,7 @@ public static partial class DashboardHostingExtensions
         app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
         MapAccount(app);
         app.MapDashboardApi();
+        app.MapFieldViewerApi();
         app.MapOpenApi().RequireAuthorization();
         return app;
     }
