@@ -37,9 +37,11 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         WaferReportRecord? csv = reports.FirstOrDefault(r => r.Format == "csv");
         WaferStatistics? statistics = null;
         VerdictView? verdict = null;
+        WaferDiffusionView? diffusion = null;
         if (json?.SummaryJson is { } summary)
         {
             (statistics, verdict) = ReadSummary(summary, json.CreatedAt);
+            diffusion = DiffusionOf(WaferReportDigestJson.Read(summary));
         }
         IReadOnlyList<WireMeasurement> wires = csv is not null && File.Exists(csv.FilePath) ? await ReadWiresAsync(csv.FilePath, cancellationToken).ConfigureAwait(false) : [];
         if (statistics is not null)
@@ -51,7 +53,7 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
             };
         }
         return new WaferDetail(waferId, run?.Name ?? "", fields, statistics, wires, verdict, [.. reports.Select(r => r.Format).OrderBy(f => f, StringComparer.Ordinal)],
-            Droplets(names, analyses));
+            diffusion, Droplets(names, analyses));
     }
 
     /// <summary>
