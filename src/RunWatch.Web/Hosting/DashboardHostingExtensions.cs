@@ -139,6 +139,7 @@ public static partial class DashboardHostingExtensions
         services.TryAddSingleton<Data.IDashboardQueries>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
         services.TryAddSingleton<Data.IDashboardCommands>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
         services.TryAddSingleton<Data.IPlannerEngine, Data.Store.ProcessModelPlanner>();
+        services.TryAddSingleton<Data.ILabRecordQueries, Data.Store.StoreLabRecords>();
         services.AddHostedService<StoredSettingsStartupService>();
         return services;
     }
