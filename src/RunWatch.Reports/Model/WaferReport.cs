@@ -17,6 +17,7 @@ namespace RunWatch.Reports.Model;
 /// <param name="Comparison">Predicted against measured after SEM, or null.</param>
 /// <param name="Verdict">The QC verdict with its rules.</param>
 /// <param name="Diffusion">The diffusion radius model the wafer was judged with, or null when it was not applied.</param>
+/// <param name="Droplets">Wire and droplet radius of the wires carrying a droplet, every field pooled; null when not reported.</param>
 public sealed record WaferReport(
     ReportIdentity Identity,
     ThermalSummary Thermal,
@@ -28,4 +29,5 @@ public sealed record WaferReport(
     RadiusPrediction? Prediction,
     PredictedVsMeasured? Comparison,
     QcVerdict Verdict,
-    DiffusionModelFigures? Diffusion = null);
+    DiffusionModelFigures? Diffusion = null,
+    DropletFigures? Droplets = null);

@@ -72,7 +72,7 @@ public sealed class WaferReportService
             if (File.Exists(overlay))
             {
                 thumbnails.Add(new FieldThumbnail(result.FieldName, await File.ReadAllBytesAsync(overlay, cancellationToken).ConfigureAwait(false),
-                    Caption(result), result.Wires.Count));
+                    Caption(result), result.Wires.Count, DropletFigures.From(result.Wires)));
             }
         }
         if (fields.Count == 0)
@@ -192,7 +192,8 @@ public sealed class WaferReportService
             evaluation.Prediction,
             evaluation.Comparison,
             verdictInForce,
-            diffusionFigures);
+            diffusionFigures,
+            DropletFigures.From(fields.SelectMany(f => f.Wires)));
 
         ReportFiles written = await Task.Run(() => RunWatch.Reports.WaferReportWriter.WriteAll(report, folder), cancellationToken).ConfigureAwait(false);
         var files = new Dictionary<string, string>(StringComparer.Ordinal)
