@@ -9,9 +9,10 @@ namespace RunWatch.Simulation.Growth;
 /// </summary>
 /// <remarks>
 /// Default numbers (all invented, chosen to sit in ranges typical of self-catalysed GaAs wires on silicon as we
-/// remember them, FROM MEMORY, unchecked): λ of a few hundred nm at 590–630 °C (reported values span roughly
-/// 0.1–2 µm), hotter growth shortening λ (E_des &gt; E_D, as for Ga on oxide-covered silicon), wire radii 20–80 nm,
-/// heights of a few µm, planar-equivalent rates of a few hundredths of a nm/s reaching the wires.
+/// remember them, FROM MEMORY, unchecked): λ = 0.35, 0.30, 0.26 µm at 590, 610, 630 °C (reported values span
+/// roughly 0.1–2 µm), hotter growth shortening λ (E_des &gt; E_D, as for Ga on oxide-covered silicon), wire radii
+/// 20–80 nm, heights of a few µm, a planar-equivalent rate of 0.08 nm/s reaching the wires (GaAs layers are commonly
+/// grown at 0.1–1 nm/s).
 /// </remarks>
 /// <param name="DiffusivityPrefactorUm2PerS">D₀ (µm²/s).</param>
 /// <param name="DiffusionBarrierEv">E_D (eV).</param>
@@ -23,11 +24,11 @@ namespace RunWatch.Simulation.Growth;
 /// <param name="SeedRadiusSdNm">Wire-to-wire SD of r₀ (nm).</param>
 /// <param name="MeanNucleationDelayS">Mean of the exponential delay after the shutter opens before a wire starts to collect (s).</param>
 public sealed record AdatomPhysics(
-    double DiffusivityPrefactorUm2PerS = 4e6,
+    double DiffusivityPrefactorUm2PerS = 1.5e6,
     double DiffusionBarrierEv = 1.3,
     double LifetimePrefactorS = 1.2e-13,
     double DesorptionEnergyEv = 2.3,
-    double GrowthRateNmPerS = 0.02,
+    double GrowthRateNmPerS = 0.08,
     double WireHeightNm = 2500,
     double SeedRadiusNm = 20,
     double SeedRadiusSdNm = 1.5,

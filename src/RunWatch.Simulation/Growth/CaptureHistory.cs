@@ -19,6 +19,7 @@ public sealed class CaptureHistory
             throw new ArgumentException("a history needs two or more samples, one temperature per time");
         }
         _times = timesS.ToArray();
+        double peak = double.NegativeInfinity;
         _lambdas = new double[timesS.Length];
         var steps = new double[timesS.Length - 1];
         for (int k = 0; k < _times.Length; k++)
@@ -28,15 +29,20 @@ public sealed class CaptureHistory
                 throw new ArgumentException($"sample {k}: times must increase and every value be finite");
             }
             _lambdas[k] = physics.CaptureLengthUm(temperaturesC[k]);
+            peak = Math.Max(peak, temperaturesC[k]);
             if (k > 0)
             {
                 steps[k - 1] = _times[k] - _times[k - 1];
             }
         }
         Array.Sort(steps);
+        PeakTemperatureC = peak;
         StartS = _times[0];
         EndS = _times[^1] + steps[steps.Length / 2];
     }
+
+    /// <summary>Highest temperature of the history (°C).</summary>
+    public double PeakTemperatureC { get; }
 
     /// <summary>Start of the history (s).</summary>
     public double StartS { get; }
