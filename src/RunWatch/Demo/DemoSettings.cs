@@ -17,6 +17,10 @@ internal static class DemoSettings
     /// </summary>
     public const double Acceleration = 120;
 
+    /// <summary>What every screen and report of the demo says about its data and its clock.</summary>
+    public static string DataNote { get; } = string.Create(CultureInfo.InvariantCulture,
+        $"Demo: invented data. The demo clock is accelerated {Acceleration:0}x: a 30-minute growth is recorded as {1800 / Acceleration:0} s of timestamps.");
+
     /// <summary>Embedded broker port of the demo (1883 is often taken by a system broker).</summary>
     public const int BrokerPort = 1884;
 
@@ -71,6 +75,8 @@ internal static class DemoSettings
         "--Intake:StableFor=00:00:01",
         "--Intake:RescanInterval=00:00:01",
         "--WaferPipeline:DefaultProcess=nw-demo",
+        "--WaferPipeline:DataNote=" + DataNote,
+        "--RunWatch:Dashboard:DataNote=" + DataNote,
         "--Serilog:MinimumLevel:Default=Warning",
         // The dashboard draws its bands from its own settings; keep them equal to the demo chamber's alert bands.
         "--RunWatch:Dashboard:WarningBandK=" + WarningBandK.ToString(CultureInfo.InvariantCulture),
