@@ -19,6 +19,7 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
         var publisher = new ChamberPublisher("127.0.0.1", brokerPort, "runwatch", "lab", "demo-1");
         var reports = new List<WaferReportRecord>();
         await WaitForBrokerAsync(cancellationToken).ConfigureAwait(false);
+        var cases = new DemoGrowthCases(Path.Combine(Path.GetDirectoryName(intake.DropFolder)!, "growth-cases"));
         foreach (DemoRunPlan plan in DemoSettings.Runs)
         {
             var simulation = new ChamberSimulatorOptions
@@ -31,6 +32,7 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
             };
             // The wafers' truth is grown from the same simulated history the chamber publishes, while it plays.
             CaptureHistory history = GrowthHistory(simulation);
+            (double FromS, double ToS) window = cases.WriteRecord(plan, simulation);
             var truth = new Dictionary<string, Task<TruthSummary>>(StringComparer.Ordinal);
             foreach (string wafer in plan.Wafers)
             {
@@ -44,6 +46,7 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
             foreach (string wafer in plan.Wafers)
             {
                 TruthSummary grown = await truth[wafer].ConfigureAwait(false);
+                cases.AddWafer(wafer, plan.Run, window, grown.Images[0]);
                 DropFields(wafer, grown);
             }
             foreach (string wafer in plan.Wafers)
@@ -59,6 +62,9 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
             }
             await AcceptFirstModelAsync(cancellationToken).ConfigureAwait(false);
         }
+        cases.WriteCaseFiles();
+        output.WriteLine($"[demo] the runs on their own clock (not accelerated) with each wafer's first field, as growth cases for the diffusion model: "
+            + $"runwatch model fit {Path.Combine(cases.Folder, DemoGrowthCases.CalibrateFile)} --out model.json, then runwatch model predict model.json {Path.Combine(cases.Folder, DemoGrowthCases.HoldOutFile)}");
         var calibration = await new ProcessCalibrationService(wafers, time).ProposeAsync("nw-demo", cancellationToken).ConfigureAwait(false);
         if (calibration is { } c)
         {
