@@ -6,7 +6,7 @@ namespace RunWatch.Demo;
 
 /// <summary>
 /// The invented demo scenario: one MBE-style chamber "demo-1" at site "lab", an invented GaAs-like process, four
-/// runs at three growth temperatures and three growth times (one with a strong excursion), and a QC specification
+/// runs at three growth temperatures and three growth times (one with an excursion), and a QC specification
 /// for the demo recipe. Nothing here describes a real instrument or process.
 /// </summary>
 internal static class DemoSettings
@@ -61,7 +61,7 @@ internal static class DemoSettings
         new("R-DEMO-01", ["W-DEMO-01-A", "W-DEMO-01-B"], 610, 101),
         new("R-DEMO-02", ["W-DEMO-02-A"], 590, 202, ExcursionHeatK: 0),
         new("R-DEMO-03", ["W-DEMO-03-A"], 630, 303, GrowthS: 1200, ExcursionHeatK: 0),
-        new("R-DEMO-04", ["W-DEMO-04-A"], 600, 404, GrowthS: 1500, ExcursionHeatK: 250),
+        new("R-DEMO-04", ["W-DEMO-04-A"], 600, 404, GrowthS: 1500),
     ];
 
     /// <summary>Configuration arguments of the demo; the user's own arguments come after them and win.</summary>
