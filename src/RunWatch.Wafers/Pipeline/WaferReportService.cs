@@ -4,6 +4,7 @@ using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Excursions;
 using RunWatch.Core.Model;
+using RunWatch.Core.Model.Diffusion;
 using RunWatch.Core.Qc;
 using RunWatch.Core.Thermal;
 using RunWatch.Core.Wafers;
@@ -82,6 +83,17 @@ public sealed class WaferReportService
         string recipe = run?.Recipe ?? record.Process ?? _options.DefaultProcess;
         string process = record.Process ?? recipe;
         RadiusModelFit? accepted = await AcceptedModelAsync(process, cancellationToken).ConfigureAwait(false);
+        (ModelFitRecord Record, DiffusionModelParams Params)? diffusion = null;
+        ThermalExposure? exposure = null;
+        string? exposureMissing = null;
+        if (_options.RadiusModel != WaferRadiusModel.CaptureAreaRegression)
+        {
+            diffusion = await RunGrowthHistory.AcceptedModelAsync(_wafers, process, cancellationToken).ConfigureAwait(false);
+            if (diffusion is not null)
+            {
+                (exposure, exposureMissing) = await new RunGrowthHistory(_store).LoadAsync(run, cancellationToken).ConfigureAwait(false);
+            }
+        }
         RunExcursions excursions = RunExcursions.From(run);
         // The stored specification (seeded from configuration, edited by admins) when the store keeps them.
         QcSpecification specification;
@@ -98,11 +110,18 @@ public sealed class WaferReportService
             specification = new QcSpecification();
             unspecified = true;
         }
-        var evaluation = WaferEvaluator.Evaluate(new WaferEvaluationInput
+        // The diffusion options solve the field several times: off the caller's thread.
+        var evaluation = await Task.Run(() => WaferEvaluator.Evaluate(new WaferEvaluationInput
         {
             WaferId = wafer,
             Recipe = recipe,
+            Process = process,
             Fields = fields,
+            RadiusModel = _options.RadiusModel,
+            DiffusionModel = diffusion?.Params.Model,
+            GrowthExposure = exposure,
+            GrowthExposureMissing = exposureMissing,
+            CaptureTable = new CaptureTableOptions { CellSizeUm = _options.CaptureCellNm / 1000 },
             AcceptedModel = accepted,
             Thermal = new RunThermalFacts(run?.LEffNm, run?.Coverage, excursions.Count, excursions.MaxAbsRelativeLChange),
             Specification = specification,
@@ -110,7 +129,10 @@ public sealed class WaferReportService
             PredictionFields = _options.PredictionFields,
             CaptureRadiusSearchMin = _options.CaptureRadiusSearchMin,
             CaptureRadiusSearchMax = _options.CaptureRadiusSearchMax,
-        });
+        }), cancellationToken).ConfigureAwait(false);
+        DiffusionModelFigures? diffusionFigures = evaluation.Diffusion is { } applied && diffusion is { } used
+            ? new DiffusionModelFigures(used.Record.Id, used.Params.Model, applied, run?.Summary?.Diffusion?.MeanRadiusNm, run?.Summary?.Diffusion?.RadiusSdNm)
+            : null;
         if (evaluation.ModelFittedOnThisWafer && evaluation.Model is not null)
         {
             // Proposed, never accepted automatically: a person accepts process models.
@@ -173,7 +195,8 @@ public sealed class WaferReportService
             run?.LEffNm ?? double.NaN,
             evaluation.Prediction,
             evaluation.Comparison,
-            verdictInForce);
+            verdictInForce,
+            diffusionFigures);
 
         ReportFiles written = await Task.Run(() => RunWatch.Reports.WaferReportWriter.WriteAll(report, folder), cancellationToken).ConfigureAwait(false);
         var files = new Dictionary<string, string>(StringComparer.Ordinal)
@@ -184,7 +207,8 @@ public sealed class WaferReportService
             ["json"] = written.JsonPath,
         };
         string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce,
-            evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null));
+            evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null,
+            diffusionFigures is null ? null : DiffusionDigest(diffusionFigures)));
         string verdict = verdictInForce.Outcome.ToString().ToLowerInvariant();
         foreach (var (format, path) in files)
         {
@@ -192,6 +216,13 @@ public sealed class WaferReportService
         }
         Log.ReportWritten(_logger, wafer, verdict, folder);
         return new WaferReportOutcome(wafer, verdictInForce, folder, files);
+    }
+
+    private static WaferDiffusionDigest DiffusionDigest(DiffusionModelFigures d)
+    {
+        WaferDiffusionFigures f = d.Figures;
+        return new WaferDiffusionDigest(d.ModelFitId, f.Method.ToString(), f.MeanTemperatureC, f.CoveredS, f.LambdaAtMeanUm * 1000,
+            double.IsFinite(f.LambdaEffUm) ? f.LambdaEffUm * 1000 : null, f.LambdaMinUm * 1000, f.LambdaMaxUm * 1000, f.PredictedWires, f.GuardedWires, f.Extrapolated);
     }
 
     private static string UnspecifiedText(string recipe) =>
