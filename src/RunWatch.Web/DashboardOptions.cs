@@ -14,6 +14,12 @@ public sealed class DashboardOptions
     /// <summary>IANA or Windows time-zone id for displayed times; empty means the machine's local zone.</summary>
     public string TimeZone { get; set; } = "";
 
+    /// <summary>
+    /// A note shown at the top of every screen when set: the demo sets it to say that its data are invented and its
+    /// clock accelerated. Empty (the default) shows nothing.
+    /// </summary>
+    public string DataNote { get; set; } = "";
+
     /// <summary>Most points any chart ships to the browser.</summary>
     /// <value>5000.</value>
     [Range(100, 50_000)]

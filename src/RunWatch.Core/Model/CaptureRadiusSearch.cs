@@ -63,9 +63,10 @@ public static class CaptureRadiusSearch
                 {
                     r2 = RadiusModelFitter.Fit(kind, usedAreas.AsSpan(0, m), usedRadii.AsSpan(0, m)).RSquared;
                 }
-                catch (ArgumentException)
+                catch (Exception ex) when (ex is ArgumentException or InvalidOperationException)
                 {
-                    // All Â equal at this L (every disc inside its cell): no information about L here.
+                    // All Â equal at this L (every disc inside its cell): no information about L here. The linear
+                    // fit refuses with ArgumentException, the power law with a singular Jacobian.
                     r2 = double.NaN;
                 }
             }

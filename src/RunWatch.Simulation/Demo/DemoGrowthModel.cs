@@ -1,7 +1,7 @@
 namespace RunWatch.Simulation.Demo;
 
 /// <summary>
-/// The invented "true" growth law behind the demo's SEM fields: r = K·Â^P with seeded scatter. Mass balance at fixed
+/// A stand-in radius law for quick pipeline-test fields (not the demo's truth, which is grown by the adatom simulation): r = K·Â^P with seeded scatter. Mass balance at fixed
 /// wire height gives P ≈ 0.5 (volume ∝ collected area, r ∝ √volume). Demo data only; no real process behaves
 /// exactly like this.
 /// </summary>

@@ -14,6 +14,9 @@ public sealed class WaferPipelineOptions
     /// <summary>Process (recipe family) used when neither the wafer nor its run names one. Default <c>default</c>.</summary>
     public string DefaultProcess { get; set; } = "default";
 
+    /// <summary>A note added to every report when set (the demo: invented data, accelerated clock). Empty adds none.</summary>
+    public string DataNote { get; set; } = "";
+
     /// <summary>Pixel size for fields that carry none (no sidecar, no TIFF tags), nm; null = such fields fail with a reason.</summary>
     public double? DefaultPixelSizeNm { get; set; }
 

@@ -130,7 +130,8 @@ public static partial class DashboardHostingExtensions
     /// Registers the dashboard's data over the daemon's store: <see cref="Data.Store.StoreDashboardData"/> for the
     /// queries and commands (needs <see cref="Storage.IRunWatchStore"/> and <see cref="Storage.IAlertCommands"/>), the
     /// planner over the processes' accepted models (<see cref="Data.Store.ProcessModelPlanner"/>, falling back to
-    /// RunWatch:Dashboard:Planner) unless a planner is registered already, and the start-up load of stored settings.
+    /// RunWatch:Dashboard:Planner) and the diffusion-model planner (<see cref="Data.Store.StoreGrowthPlanner"/>) unless
+    /// registered already, and the start-up load of stored settings.
     /// </summary>
     public static IServiceCollection AddRunWatchDashboardStoreData(this IServiceCollection services)
     {
@@ -140,6 +141,7 @@ public static partial class DashboardHostingExtensions
         services.TryAddSingleton<Data.IDashboardCommands>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
         services.TryAddSingleton<Data.IPlannerEngine, Data.Store.ProcessModelPlanner>();
         services.TryAddSingleton<Data.ILabRecordQueries, Data.Store.StoreLabRecords>();
+        services.TryAddSingleton<Data.IGrowthPlanEngine, Data.Store.StoreGrowthPlanner>();
         services.AddHostedService<StoredSettingsStartupService>();
         return services;
     }

@@ -15,7 +15,7 @@ internal static class DemoCommand
     {
         var dataFolder = new Option<string>("--data-folder") { Description = "Folder for the demo's database, drop folder and reports (emptied at start).", DefaultValueFactory = _ => "demo-data" };
         var exitWhenDone = new Option<bool>("--exit-when-done") { Description = "Stop once every demo wafer has its report (for scripts and tests)." };
-        var command = new Command("demo", "Run the whole job on embedded defaults: an invented chamber publishes two runs over MQTT, the daemon records them, "
+        var command = new Command("demo", "Run the whole job on embedded defaults: an invented chamber publishes four runs over MQTT (demo clock accelerated 120x), the daemon records them, "
             + "invented SEM fields of their wafers arrive, and each wafer gets its analysis, prediction, verdict and report. Demo data only.")
         {
             TreatUnmatchedTokensAsErrors = false,

@@ -1,6 +1,7 @@
 using RunWatch.Ingest.Health;
 using RunWatch.Simulation.Chamber;
 using RunWatch.Simulation.Demo;
+using RunWatch.Simulation.Growth;
 using RunWatch.Storage;
 using RunWatch.Wafers.Pipeline;
 
@@ -18,21 +19,35 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
         var publisher = new ChamberPublisher("127.0.0.1", brokerPort, "runwatch", "lab", "demo-1");
         var reports = new List<WaferReportRecord>();
         await WaitForBrokerAsync(cancellationToken).ConfigureAwait(false);
+        var cases = new DemoGrowthCases(Path.Combine(Path.GetDirectoryName(intake.DropFolder)!, "growth-cases"));
         foreach (DemoRunPlan plan in DemoSettings.Runs)
         {
             var simulation = new ChamberSimulatorOptions
             {
                 Seed = plan.Seed,
                 Acceleration = DemoSettings.Acceleration,
-                Recipe = RecipeAt(plan.GrowthC),
+                Recipe = RecipeAt(plan.GrowthC, plan.GrowthS),
+                ExcursionStep = plan.ExcursionHeatK > 0 ? "growth" : null,
+                ExcursionHeatK = plan.ExcursionHeatK > 0 ? plan.ExcursionHeatK : 100,
             };
-            output.WriteLine($"[demo] run {plan.Run}: growth at {plan.GrowthC:0} °C, wafers {string.Join(", ", plan.Wafers)}; publishing telemetry ({DemoSettings.Acceleration:0}x accelerated) ...");
+            // The wafers' truth is grown from the same simulated history the chamber publishes, while it plays.
+            CaptureHistory history = GrowthHistory(simulation);
+            (double FromS, double ToS) window = cases.WriteRecord(plan, simulation);
+            var truth = new Dictionary<string, Task<TruthSummary>>(StringComparer.Ordinal);
+            foreach (string wafer in plan.Wafers)
+            {
+                int seed = (plan.Seed * 10) + truth.Count; // stable across processes (string hashes are not)
+                truth[wafer] = Task.Run(() => GrowFields(wafer, history, seed), cancellationToken);
+            }
+            output.WriteLine($"[demo] run {plan.Run}: growth at {plan.GrowthC:0} °C for {plan.GrowthS / 60:0} min{(plan.ExcursionHeatK > 0 ? " with an injected excursion" : "")}, wafers {string.Join(", ", plan.Wafers)}; publishing telemetry (demo clock accelerated {DemoSettings.Acceleration:0}x: the growth is recorded as {plan.GrowthS / DemoSettings.Acceleration:0} s) ...");
             int sent = await publisher.PublishRunAsync(plan, simulation, time, cancellationToken).ConfigureAwait(false);
             RunRecord run = await WaitForClosedRunAsync(plan.Run, cancellationToken).ConfigureAwait(false);
             output.WriteLine($"[demo] run {plan.Run} closed: {sent} samples; L_nom {Nm(run.LNomNm)}, L_eff {Nm(run.LEffNm)} (c = 1), T_eff {run.TEffC:0.0} °C, coverage {run.Coverage * 100:0.#} %");
             foreach (string wafer in plan.Wafers)
             {
-                DropFields(wafer, run.LEffNm ?? 300, plan.Seed + wafer.GetHashCode(StringComparison.Ordinal) % 1000);
+                TruthSummary grown = await truth[wafer].ConfigureAwait(false);
+                cases.AddWafer(wafer, plan.Run, window, grown.Images[0]);
+                DropFields(wafer, grown);
             }
             foreach (string wafer in plan.Wafers)
             {
@@ -47,6 +62,9 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
             }
             await AcceptFirstModelAsync(cancellationToken).ConfigureAwait(false);
         }
+        cases.WriteCaseFiles();
+        output.WriteLine($"[demo] the runs on their own clock (not accelerated) with each wafer's first field, as growth cases for the diffusion model: "
+            + $"runwatch model fit {Path.Combine(cases.Folder, DemoGrowthCases.CalibrateFile)} --out model.json, then runwatch model predict model.json {Path.Combine(cases.Folder, DemoGrowthCases.HoldOutFile)}");
         var calibration = await new ProcessCalibrationService(wafers, time).ProposeAsync("nw-demo", cancellationToken).ConfigureAwait(false);
         if (calibration is { } c)
         {
@@ -57,29 +75,62 @@ internal sealed class DemoRunner(IRunWatchStore store, IWaferStore wafers, Field
         return reports;
     }
 
-    /// <summary>The simulator's demo recipe with the growth steps moved to <paramref name="growthC"/>.</summary>
-    private static IReadOnlyList<RecipeStep> RecipeAt(double growthC)
+    /// <summary>The simulator's demo recipe with the growth steps moved to <paramref name="growthC"/> and the growth hold set to <paramref name="growthS"/>.</summary>
+    private static IReadOnlyList<RecipeStep> RecipeAt(double growthC, double growthS)
     {
         var steps = new List<RecipeStep>();
         foreach (RecipeStep s in ChamberSimulatorOptions.DemoRecipe)
         {
-            steps.Add(s.Name is "cool-to-growth" or "droplet-predeposition" or "stabilise" or "growth" ? s with { TargetC = growthC } : s);
+            RecipeStep step = s.Name is "cool-to-growth" or "droplet-predeposition" or "stabilise" or "growth" ? s with { TargetC = growthC } : s;
+            steps.Add(step.Name == "growth" ? step with { HoldS = growthS } : step);
         }
         return steps;
     }
 
-    /// <summary>Writes the fields in a staging folder, then moves sidecar first and image last into the drop folder.</summary>
-    private void DropFields(string wafer, double lEffNm, int seed)
+    /// <summary>The growth step's thermocouple record (simulated seconds) as the truth's capture-length history.</summary>
+    private static CaptureHistory GrowthHistory(ChamberSimulatorOptions simulation)
     {
-        string staging = Path.Combine(Path.GetDirectoryName(intake.DropFolder)!, "demo-staging");
-        foreach (string image in DemoWaferFields.Write(staging, wafer, lEffNm, DemoSettings.DensityPerCm2, DemoSettings.FieldsPerWafer, Math.Abs(seed)))
+        var times = new List<double>();
+        var temperatures = new List<double>();
+        foreach (ChamberSample sample in new ChamberSimulator(simulation).Run())
+        {
+            if (sample.Step == "growth" && sample.GaShutter == 1)
+            {
+                times.Add(sample.TimeS);
+                temperatures.Add(sample.SubstrateTcC);
+            }
+        }
+        return new CaptureHistory(times.ToArray(), temperatures.ToArray(), DemoSettings.Physics);
+    }
+
+    /// <summary>What the truth simulation made of one wafer, for the demo's output.</summary>
+    private sealed record TruthSummary(IReadOnlyList<string> Images, double MeanLambdaUm, double PeakC, double MeanRadiusNm, double SdRadiusNm, int Wires, double DesorbedShare);
+
+    /// <summary>Grows the wafer's fields from the adatom simulation and writes them into a staging folder of their own.</summary>
+    private TruthSummary GrowFields(string wafer, CaptureHistory history, int seed)
+    {
+        string staging = Path.Combine(Path.GetDirectoryName(intake.DropFolder)!, "demo-staging", wafer);
+        (IReadOnlyList<string> images, IReadOnlyList<GrownWires> truth) = DemoWaferFields.WriteGrown(staging, wafer, history, DemoSettings.Physics,
+            DemoSettings.DensityPerUm2, DemoSettings.FieldsPerWafer, DemoSettings.LaunchedPerWire, seed);
+        var radii = truth.SelectMany(t => t.RadiiNm).ToList();
+        double mean = radii.Average();
+        double sd = Math.Sqrt(radii.Sum(r => (r - mean) * (r - mean)) / Math.Max(radii.Count - 1, 1));
+        double desorbed = truth.Sum(t => (double)t.Desorbed) / truth.Sum(t => (double)t.Launched);
+        return new TruthSummary(images, history.MeanCaptureLengthUm(), history.PeakTemperatureC, mean, sd, radii.Count, desorbed);
+    }
+
+    /// <summary>Moves the staged fields, sidecar first and image last, into the drop folder.</summary>
+    private void DropFields(string wafer, TruthSummary truth)
+    {
+        foreach (string image in truth.Images)
         {
             string name = Path.GetFileName(image);
             string sidecar = image + Imaging.Scale.FieldSidecar.Suffix;
             File.Move(sidecar, Path.Combine(intake.DropFolder, name + Imaging.Scale.FieldSidecar.Suffix), overwrite: true);
             File.Move(image, Path.Combine(intake.DropFolder, name), overwrite: true);
         }
-        output.WriteLine($"[demo] wafer {wafer}: {DemoSettings.FieldsPerWafer} SEM fields (invented) dropped into {intake.DropFolder}");
+        output.WriteLine($"[demo] wafer {wafer}: {DemoSettings.FieldsPerWafer} SEM fields (invented) dropped into {intake.DropFolder}; their truth, from an adatom simulation "
+            + $"over the run's thermal record (peak {truth.PeakC:0.0} °C): mean λ {truth.MeanLambdaUm * 1000:0} nm, {truth.Wires} simulated wires (image and margin) of {truth.MeanRadiusNm:0.0} ± {truth.SdRadiusNm:0.0} nm, {truth.DesorbedShare * 100:0} % of the adatoms desorbed");
     }
 
     /// <summary>

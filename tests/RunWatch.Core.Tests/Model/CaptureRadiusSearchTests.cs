@@ -67,6 +67,29 @@ public sealed class CaptureRadiusSearchTests
         Assert.InRange(best.CaptureRadiusNm, 343, 357);
     }
 
+    /// <summary>
+    /// At small L every zone is (nearly) a full disc: the power-law fit has no slope to find (singular Jacobian) and
+    /// such L carry no information; the search must skip them, not fail the wafer.
+    /// </summary>
+    [Fact]
+    public void Find_PowerLawWhereZonesAreNearlyAllFullDiscs_SkipsThoseL()
+    {
+        (double[] rho, CaptureAreaEvaluator inner) = Wafer(120, 5);
+        double[] radii = rho.Select(p => 60 * Math.Sqrt(Math.Min(1, p * p / (400.0 * 400.0)))).ToArray();
+        void Evaluator(double l, Span<double> areas)
+        {
+            inner(l, areas);
+            if (l < 150)
+            {
+                areas[0] = 1 - 1e-15;
+            }
+        }
+
+        CaptureRadiusFit best = CaptureRadiusSearch.Find(radii, Evaluator, RadiusModelKind.PowerLaw, 50, 5000);
+
+        Assert.InRange(best.CaptureRadiusNm, 390, 410);
+    }
+
     [Fact]
     public void Find_BadRange_Throws()
     {
