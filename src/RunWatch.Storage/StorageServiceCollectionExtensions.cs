@@ -40,6 +40,7 @@ public static class StorageServiceCollectionExtensions
             services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
+            services.TryAddSingleton<IReportRevisionStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
         }
         else
         {
@@ -48,6 +49,7 @@ public static class StorageServiceCollectionExtensions
             services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+            services.TryAddSingleton<IReportRevisionStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
         }
         services.TryAddSingleton<QcSpecificationCatalog>();
         return services;

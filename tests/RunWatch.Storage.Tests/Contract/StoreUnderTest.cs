@@ -37,6 +37,8 @@ internal sealed class StoreUnderTest : IAsyncDisposable
 
     public IReminderBindingStore ReminderBindings => (IReminderBindingStore)_store;
 
+    public IReportRevisionStore Revisions => (IReportRevisionStore)_store;
+
     public static async Task<StoreUnderTest> CreateAsync(StoreKind kind, Action<StorageOptions>? configure = null)
     {
         if (kind == StoreKind.Sqlite)
