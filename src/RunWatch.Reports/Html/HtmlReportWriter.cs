@@ -44,6 +44,10 @@ public static class HtmlReportWriter
             ("Run start", Time(id.RunStart)), ("Run end", Time(id.RunEnd)),
             ("Report written", Time(id.GeneratedAt)), ("RunWatch", E(id.SoftwareVersion)),
         ]);
+        if (report.Provenance is { } p)
+        {
+            KeyValues(h, [("Revision", p.Revision.ToString(System.Globalization.CultureInfo.InvariantCulture) + " · " + E(p.Reason) + " · asked by " + E(p.Requester))]);
+        }
         h.Append("</header>\n");
 
         Verdict(h, report.Verdict);
@@ -54,6 +58,10 @@ public static class HtmlReportWriter
         PredictionSection(h, report, charts.PredictedVersusMeasured);
         WireTable(h, report);
 
+        if (report.Provenance is { } record)
+        {
+            Record(h, record, id.SoftwareVersion);
+        }
         if (id.Notes.Count > 0)
         {
             h.Append("<section>\n<h2>Notes</h2>\n<ul>\n");
@@ -260,6 +268,22 @@ public static class HtmlReportWriter
                 .Append(Number(p.Upper95, "0.####")).Append("</td><td>").Append(E(p.Unit)).Append("</td></tr>\n");
         }
         h.Append("</tbody>\n</table>\n");
+    }
+
+    private static void Record(StringBuilder h, ReportProvenance p, string softwareVersion)
+    {
+        h.Append("<section class=\"record\">\n<h2>Record</h2>\n<p>This report is revision ").Append(p.Revision)
+            .Append(" of this wafer's report; earlier revisions are kept unchanged. The SHA-256 of its files is listed in content.sha256 beside it; <code>runwatch verify</code> checks them.</p>\n");
+        KeyValues(h, [
+            ("Reason", E(p.Reason)), ("Asked by", E(p.Requester)), ("RunWatch", E(softwareVersion)),
+            ("Configuration and specification (SHA-256)", "<code>" + E(p.ConfigSha256) + "</code>"), ("Radius model", E(p.ModelId)),
+        ]);
+        h.Append("<table>\n<thead><tr><th>Input image</th><th>SHA-256</th></tr></thead>\n<tbody>\n");
+        foreach (ReportInputFile input in p.Inputs)
+        {
+            h.Append("<tr><td>").Append(E(input.Name)).Append("</td><td><code>").Append(E(input.Sha256)).Append("</code></td></tr>\n");
+        }
+        h.Append("</tbody>\n</table>\n</section>\n");
     }
 
     private static void KeyValues(StringBuilder h, (string Key, string EncodedValue)[] rows)

@@ -29,4 +29,8 @@ public sealed record WaferReportSummary(
     ComparisonFigures? Comparison,
     QcVerdict Verdict,
     IReadOnlyList<FieldFigures> Fields,
-    string Caution);
+    string Caution)
+{
+    /// <summary>Revision, reason, requester, configuration hash, model and input hashes; null when not a stored record.</summary>
+    public ReportProvenance? Provenance { get; init; }
+}

@@ -26,4 +26,8 @@ public sealed record WaferReport(
     double CaptureRadiusNm,
     RadiusPrediction? Prediction,
     PredictedVsMeasured? Comparison,
-    QcVerdict Verdict);
+    QcVerdict Verdict)
+{
+    /// <summary>Revision, reason, requester and what the report was made from; null for a report that is not a stored record.</summary>
+    public ReportProvenance? Provenance { get; init; }
+}

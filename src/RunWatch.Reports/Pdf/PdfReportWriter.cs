@@ -60,6 +60,10 @@ public static class PdfReportWriter
                 ("Run", id.RunId), ("Recipe", id.Recipe), ("Chamber", id.Chamber),
                 ("Run start", Time(id.RunStart)), ("Run end", Time(id.RunEnd)), ("Report written", Time(id.GeneratedAt)),
             ]);
+            if (report.Provenance is { } p)
+            {
+                page.KeyValues([("Revision", p.Revision.ToString(CultureInfo.InvariantCulture) + " · " + p.Reason + " · asked by " + p.Requester)]);
+            }
             Verdict(page, report.Verdict);
             Thermal(page, report.Thermal, charts.Thermal);
             Fields(page, report.Fields);
@@ -67,6 +71,10 @@ public static class PdfReportWriter
             ModelSection(page, report, charts.RadiusVersusArea);
             Prediction(page, report, charts.PredictedVersusMeasured);
             Wires(page, report);
+            if (report.Provenance is { } record)
+            {
+                Record(page, record, id.SoftwareVersion);
+            }
             if (id.Notes.Count > 0)
             {
                 page.Heading("Notes");
@@ -236,6 +244,34 @@ public static class PdfReportWriter
         {
             page.Image(chart.Png, page.ContentWidth * 0.8f);
         }
+    }
+
+    private static void Record(PdfLayout page, ReportProvenance p, string softwareVersion)
+    {
+        page.Heading("Record");
+        page.Paragraph("This report is revision " + p.Revision.ToString(CultureInfo.InvariantCulture)
+            + " of this wafer's report; earlier revisions are kept unchanged. The SHA-256 of its files is listed in content.sha256 beside it; runwatch verify checks them. Hashes are printed in groups of 16 hex digits.");
+        page.KeyValues([
+            ("Reason", p.Reason), ("Asked by", p.Requester), ("RunWatch", softwareVersion),
+            ("Configuration (SHA-256)", Grouped(p.ConfigSha256)), ("Radius model", p.ModelId),
+        ]);
+        var rows = new List<string[]>();
+        foreach (ReportInputFile input in p.Inputs)
+        {
+            rows.Add([input.Name, Grouped(input.Sha256)]);
+        }
+        page.Table(["Input image", "SHA-256"], rows, [0.28f, 0.72f]);
+    }
+
+    /// <summary>A hex hash in groups of 16 digits, so a line can wrap between groups instead of cutting the hash.</summary>
+    private static string Grouped(string hex)
+    {
+        var parts = new List<string>();
+        for (int i = 0; i < hex.Length; i += 16)
+        {
+            parts.Add(hex.Substring(i, Math.Min(16, hex.Length - i)));
+        }
+        return string.Join(' ', parts);
     }
 
     private static void Wires(PdfLayout page, WaferReport report)
