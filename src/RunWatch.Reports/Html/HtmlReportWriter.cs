@@ -41,9 +41,10 @@ public static class HtmlReportWriter
         }
         KeyValues(h, [
             ("Run", E(id.RunId)), ("Recipe", E(id.Recipe)), ("Chamber", E(id.Chamber)),
-            ("Run start", Time(id.RunStart)), ("Run end", Time(id.RunEnd)),
-            ("Report written", Time(id.GeneratedAt)), ("RunWatch", E(id.SoftwareVersion)),
+            ("Run start", Time(id.RunStart, id.TimeZoneId)), ("Run end", Time(id.RunEnd, id.TimeZoneId)),
+            ("Report written", Time(id.GeneratedAt, id.TimeZoneId)), ("RunWatch", E(id.SoftwareVersion)),
         ]);
+        h.Append("<p class=\"clock\">").Append(E(ClockNote(id.TimeZoneId))).Append("</p>\n");
         if (report.Provenance is { } p)
         {
             KeyValues(h, [("Revision", p.Revision.ToString(System.Globalization.CultureInfo.InvariantCulture) + " · " + E(p.Reason) + " · asked by " + E(p.Requester))]);
@@ -51,6 +52,7 @@ public static class HtmlReportWriter
         h.Append("</header>\n");
 
         Verdict(h, report.Verdict);
+        PredictionSummary(h, report);
         Thermal(h, report.Thermal, charts.Thermal);
         Fields(h, report.Fields);
         Wires(h, report, charts.Histogram);
@@ -263,11 +265,32 @@ public static class HtmlReportWriter
         h.Append("<table>\n<thead><tr><th>Parameter</th><th>Estimate</th><th>SE</th><th>95 % interval</th><th>Unit</th></tr></thead>\n<tbody>\n");
         foreach (ParameterEstimate p in parameters)
         {
-            h.Append("<tr><td>").Append(E(p.Name)).Append("</td><td class=\"num\">").Append(Number(p.Value, "0.####")).Append("</td><td class=\"num\">")
-                .Append(Number(p.StandardError, "0.####")).Append("</td><td class=\"num\">").Append(Number(p.Lower95, "0.####")).Append(" to ")
-                .Append(Number(p.Upper95, "0.####")).Append("</td><td>").Append(E(p.Unit)).Append("</td></tr>\n");
+            string f = ParameterFormat(p.Unit);
+            h.Append("<tr><td>").Append(E(p.Name)).Append("</td><td class=\"num\">").Append(Number(p.Value, f)).Append("</td><td class=\"num\">")
+                .Append(Number(p.StandardError, f)).Append("</td><td class=\"num\">").Append(Number(p.Lower95, f)).Append(" to ")
+                .Append(Number(p.Upper95, f)).Append("</td><td>").Append(E(p.Unit)).Append("</td></tr>\n");
         }
         h.Append("</tbody>\n</table>\n");
+    }
+
+    /// <summary>The prediction in brief, on the first page beside the verdict; the full section follows later.</summary>
+    private static void PredictionSummary(StringBuilder h, WaferReport report)
+    {
+        h.Append("<section class=\"prediction-summary\">\n<h2>Prediction summary</h2>\n");
+        KeyValues(h, [.. PredictionSummaryRows(report)]);
+        h.Append("</section>\n");
+    }
+
+    /// <summary>Rows shared by the HTML and PDF first pages (plain text; the HTML encodes nothing here that came from outside).</summary>
+    internal static IEnumerable<(string Key, string Value)> PredictionSummaryRows(WaferReport report)
+    {
+        yield return ("Measured mean radius", Number(report.Statistics.MeanRadiusNm, "0.0") + " nm (" + report.Statistics.Count + " wires)");
+        yield return report.Prediction is { } p
+            ? ("Predicted before SEM", Number(p.MeanRadiusNm, "0.0") + " nm, 5–95 % " + Number(p.P05Nm, "0.0") + " to " + Number(p.P95Nm, "0.0") + " nm")
+            : ("Predicted before SEM", "no prediction (no accepted radius model yet)");
+        yield return report.Comparison is { } c
+            ? ("Predicted against measured", "bias " + Number(c.BiasNm, "+0.0;−0.0") + " nm, RMSE " + Number(c.RmseNm, "0.0") + " nm, r² " + Number(c.RSquared, "0.000") + " over " + c.Count + " wires")
+            : ("Predicted against measured", "not compared (no accepted radius model yet)");
     }
 
     private static void Record(StringBuilder h, ReportProvenance p, string softwareVersion)

@@ -53,18 +53,21 @@ public static class PdfReportWriter
             EncodingQuality = 101,
         };
         using SKDocument document = SKDocument.CreatePdf(output, metadata) ?? throw new InvalidOperationException("SkiaSharp could not create a PDF document.");
-        using (var page = new PdfLayout(document, "RunWatch wafer report · " + id.WaferId + " · run " + id.RunId + " · " + Time(id.GeneratedAt)))
+        using (var page = new PdfLayout(document, "RunWatch wafer report · " + id.WaferId + " · run " + id.RunId + " · " + Time(id.GeneratedAt, id.TimeZoneId)))
         {
             page.Title("Wafer report " + id.WaferId, id.DataLabel);
             page.KeyValues([
                 ("Run", id.RunId), ("Recipe", id.Recipe), ("Chamber", id.Chamber),
-                ("Run start", Time(id.RunStart)), ("Run end", Time(id.RunEnd)), ("Report written", Time(id.GeneratedAt)),
+                ("Run start", Time(id.RunStart, id.TimeZoneId)), ("Run end", Time(id.RunEnd, id.TimeZoneId)), ("Report written", Time(id.GeneratedAt, id.TimeZoneId)),
             ]);
+            page.Paragraph(ClockNote(id.TimeZoneId));
             if (report.Provenance is { } p)
             {
                 page.KeyValues([("Revision", p.Revision.ToString(CultureInfo.InvariantCulture) + " · " + p.Reason + " · asked by " + p.Requester)]);
             }
             Verdict(page, report.Verdict);
+            page.Heading("Prediction summary", keepWithNext: 40);
+            page.KeyValues([.. HtmlReportWriter.PredictionSummaryRows(report)]);
             Thermal(page, report.Thermal, charts.Thermal);
             Fields(page, report.Fields);
             Statistics(page, report.Statistics, charts.Histogram);
@@ -207,11 +210,11 @@ public static class PdfReportWriter
         var rows = new List<string[]>();
         foreach (ParameterEstimate p in m.Parameters)
         {
-            rows.Add([p.Name, Number(p.Value, "0.####"), Number(p.StandardError, "0.####"), Number(p.Lower95, "0.####") + " to " + Number(p.Upper95, "0.####"), p.Unit]);
+            rows.Add([p.Name, Number(p.Value, ParameterFormat(p.Unit)), Number(p.StandardError, ParameterFormat(p.Unit)), Number(p.Lower95, ParameterFormat(p.Unit)) + " to " + Number(p.Upper95, ParameterFormat(p.Unit)), p.Unit]);
         }
         page.Table(["Parameter", "Estimate", "SE", "95 % interval", "Unit"], rows, [0.16f, 0.2f, 0.2f, 0.32f, 0.12f]);
         page.KeyValues([
-            ("Fit", m.Count + " wires, r² " + Number(m.RSquared, "0.0000") + ", adjusted r² " + Number(m.AdjustedRSquared, "0.0000") + ", RMSE " + Number(m.RmseNm, "0.00") + " nm, AIC " + Number(m.Aic, "0.0")),
+            ("Fit", m.Count + " wires, r² " + Number(m.RSquared, "0.0000") + ", adjusted r² " + Number(m.AdjustedRSquared, "0.0000") + ", RMSE " + Number(m.RmseNm, "0.0") + " nm, AIC " + Number(m.Aic, "0.0")),
         ]);
     }
 
@@ -236,8 +239,8 @@ public static class PdfReportWriter
         {
             page.SubHeading("After SEM");
             page.KeyValues([
-                ("Agreement", c.Count + " wires, r² " + Number(c.RSquared, "0.000") + ", RMSE " + Number(c.RmseNm, "0.00") + " nm"),
-                ("Bias (predicted − measured)", Number(c.BiasNm, "+0.00;−0.00") + " nm, mean |error| " + Number(c.MeanAbsoluteErrorNm, "0.00") + " nm"),
+                ("Agreement", c.Count + " wires, r² " + Number(c.RSquared, "0.000") + ", RMSE " + Number(c.RmseNm, "0.0") + " nm"),
+                ("Bias (predicted − measured)", Number(c.BiasNm, "+0.0;−0.0") + " nm, mean |error| " + Number(c.MeanAbsoluteErrorNm, "0.0") + " nm"),
             ]);
         }
         if (chart is not null)

@@ -178,7 +178,10 @@ public sealed class WaferReportService
         }
         var report = new WaferReport(
             new ReportIdentity(wafer, run?.Name ?? "unknown run", recipe, run?.Chamber ?? "unknown chamber", run?.StartedAt ?? record.CreatedAt,
-                run?.EndedAt, _time.GetUtcNow(), typeof(WaferReportService).Assembly.GetName().Version?.ToString() ?? "dev", DataLabel(run), notes),
+                run?.EndedAt, _time.GetUtcNow(), typeof(WaferReportService).Assembly.GetName().Version?.ToString() ?? "dev", DataLabel(run), notes)
+            {
+                TimeZoneId = _options.TimeZone,
+            },
             thermal,
             thumbnails,
             evaluation.Wires,
