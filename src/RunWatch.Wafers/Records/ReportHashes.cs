@@ -15,7 +15,7 @@ public static class ReportHashes
     public const string ListingFileName = "content.sha256";
 
     /// <summary>Name of the manifest in a revision folder.</summary>
-    public const string ManifestFileName = "revision.json";
+    public const string ManifestFileName = RunWatch.Storage.WaferFiles.RevisionManifestName;
 
     private static readonly JsonSerializerOptions ManifestJson = new(JsonSerializerDefaults.Web) { WriteIndented = true };
 
