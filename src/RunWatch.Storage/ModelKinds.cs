@@ -20,4 +20,11 @@ public static class ModelKinds
     /// parameters are Core <c>DiffusionModelParams</c>. Once accepted, run-end evaluations use it.
     /// </summary>
     public const string Diffusion = "diffusion";
+
+    /// <summary>
+    /// A diffusion-model refit that the data could not support: its parameters are Core <c>DiffusionFitResult</c> with no
+    /// model and the refusal's plain reason (one temperature, a flat profile, every wire Voronoi-limited, ...). Shown on
+    /// the Process model screen; never accepted.
+    /// </summary>
+    public const string DiffusionRefusal = "diffusion-refusal";
 }

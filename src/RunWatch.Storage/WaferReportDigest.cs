@@ -13,4 +13,6 @@ namespace RunWatch.Storage;
 /// <param name="Prediction">Expected radius distribution from L_eff, null when it could not be made.</param>
 /// <param name="Verdict">The QC verdict with every rule.</param>
 /// <param name="Agreement">Predicted against measured radius per wire, null when not compared (older digests too).</param>
-public sealed record WaferReportDigest(WireStatistics? Statistics, RadiusPrediction? Prediction, QcVerdict? Verdict, WaferAgreementDigest? Agreement = null);
+/// <param name="Diffusion">The diffusion radius model's figures for the wafer, null when it was not applied (older digests too).</param>
+public sealed record WaferReportDigest(WireStatistics? Statistics, RadiusPrediction? Prediction, QcVerdict? Verdict, WaferAgreementDigest? Agreement = null,
+    WaferDiffusionDigest? Diffusion = null);

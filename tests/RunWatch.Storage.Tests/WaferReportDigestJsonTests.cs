@@ -48,6 +48,20 @@ public sealed class WaferReportDigestJsonTests
     }
 
     [Fact]
+    public void Write_WithDiffusionFigures_ReadsThemBackAndOlderDigestsHaveNone()
+    {
+        var figures = new WaferDiffusionDigest(42, "Diffusion", 605.2, 1000, 628.1, 547.4, 525, 658, 34, 86, Extrapolated: true);
+        var digest = new WaferReportDigest(null, null, null, new WaferAgreementDigest(34, 0.17, 1.2, 0.86, 0.9), figures);
+
+        WaferReportDigest back = WaferReportDigestJson.Read(WaferReportDigestJson.Write(digest));
+
+        Assert.Equal(figures, back.Diffusion);
+        Assert.Equal(digest.Agreement, back.Agreement);
+        Assert.Null(WaferReportDigestJson.Read(WaferReportDigestJson.Write(new WaferReportDigest(null, null, null))).Diffusion);
+        Assert.Null(WaferReportDigestJson.Read("{\"statistics\":null}").Diffusion);
+    }
+
+    [Fact]
     public void Read_NotADigest_EmptyDigestNotAnException()
     {
         Assert.Equal(new WaferReportDigest(null, null, null), WaferReportDigestJson.Read("{\"statistics\":"));

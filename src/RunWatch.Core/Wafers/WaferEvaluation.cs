@@ -11,7 +11,16 @@ public sealed record WaferEvaluation
 
     public WireStatistics? Statistics { get; init; }
 
-    /// <summary>The radius model used for the per-wire predictions.</summary>
+    /// <summary>The radius model the verdict used.</summary>
+    public WaferRadiusModel RadiusModel { get; init; } = WaferRadiusModel.Diffusion;
+
+    /// <summary>The diffusion model's λ, λ_eff and counts for this wafer; null when the diffusion model was not applied.</summary>
+    public WaferDiffusionFigures? Diffusion { get; init; }
+
+    /// <summary>The diffusion radius model applied, null when none was.</summary>
+    public Model.Diffusion.DiffusionRadiusModel? DiffusionModel { get; init; }
+
+    /// <summary>The Â regression used for the per-wire predictions (only with <see cref="WaferRadiusModel.CaptureAreaRegression"/>).</summary>
     public RadiusModelFit? Model { get; init; }
 
     /// <summary>True when no accepted process model existed and the model was fitted on this wafer itself.</summary>

@@ -6,11 +6,13 @@ using RunWatch.Core.Qc;
 namespace RunWatch.Core.Wafers;
 
 /// <summary>
-/// Pure evaluation of one wafer from its analysed fields: pools the wires, applies (or, lacking one, fits) the
-/// process's radius model, finds the best-fit capture radius, predicts the radius distribution from L_eff and the
-/// measured density, compares predicted with measured per wire, and judges the result against the recipe's spec.
+/// Pure evaluation of one wafer from its analysed fields: pools the wires, predicts each wire's radius with the
+/// configured radius model, compares predicted with measured per wire, and judges the result against the recipe's
+/// spec. The default model is the diffusion solution over the run's real history (WaferEvaluator.Diffusion.cs); the
+/// Â regression (below: applies or, lacking one, fits the process's regression, finds the best-fit capture radius and
+/// predicts the radius distribution from L_eff) is kept as a named option.
 /// </summary>
-public static class WaferEvaluator
+public static partial class WaferEvaluator
 {
     /// <summary>Wires that enter the statistics and the model: vertical, clear of the image edge and band, with a radius (a bare droplet without a contact angle has none).</summary>
     public static bool Counts(FieldWire w) => w.Vertical && w.Interior && double.IsFinite(w.RadiusNm);
@@ -18,6 +20,10 @@ public static class WaferEvaluator
     public static WaferEvaluation Evaluate(WaferEvaluationInput input)
     {
         ArgumentNullException.ThrowIfNull(input);
+        if (input.RadiusModel != WaferRadiusModel.CaptureAreaRegression)
+        {
+            return EvaluateWithDiffusion(input);
+        }
         var notes = new List<string>();
         var rows = new List<WireRow>();
         var areas = new List<double>();
@@ -131,6 +137,7 @@ public static class WaferEvaluator
             Verdict = verdict,
             Notes = notes,
             AnalysedAreaCm2 = areaCm2,
+            RadiusModel = WaferRadiusModel.CaptureAreaRegression,
         };
     }
 

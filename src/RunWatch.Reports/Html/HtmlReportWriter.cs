@@ -13,7 +13,7 @@ namespace RunWatch.Reports.Html;
 /// Writes a wafer report as one self-contained, printable XHTML-style page: inline SVG charts, thumbnails as data:
 /// URIs, no external resources. Every string from outside is HTML-encoded.
 /// </summary>
-public static class HtmlReportWriter
+public static partial class HtmlReportWriter
 {
     /// <summary>At most this many wire rows appear on the page; the CSV holds them all.</summary>
     public const int MaxWireRows = 200;
@@ -189,6 +189,11 @@ public static class HtmlReportWriter
     {
         h.Append("<section>\n<h2>Radius model</h2>\n");
         Figure(h, chart);
+        if (report.Diffusion is { } diffusion)
+        {
+            DiffusionModel(h, diffusion);
+            return;
+        }
         if (report.Model is not { } m)
         {
             h.Append("<p>No accepted radius model for this process yet.</p>\n</section>\n");

@@ -18,6 +18,7 @@ namespace RunWatch.Reports.Json;
 /// <param name="Verdict">Verdict with every rule.</param>
 /// <param name="Fields">Field names and wire counts.</param>
 /// <param name="Caution">The caution footer.</param>
+/// <param name="Diffusion">The diffusion radius model the wafer was judged with (parameters with intervals, λ, λ_eff), or null.</param>
 public sealed record WaferReportSummary(
     int SchemaVersion,
     ReportIdentity Identity,
@@ -29,7 +30,8 @@ public sealed record WaferReportSummary(
     ComparisonFigures? Comparison,
     QcVerdict Verdict,
     IReadOnlyList<FieldFigures> Fields,
-    string Caution)
+    string Caution,
+    DiffusionModelFigures? Diffusion = null)
 {
     /// <summary>Revision, reason, requester, configuration hash, model and input hashes; null when not a stored record.</summary>
     public ReportProvenance? Provenance { get; init; }

@@ -16,6 +16,7 @@ namespace RunWatch.Reports.Model;
 /// <param name="Prediction">Prediction made before SEM, or null.</param>
 /// <param name="Comparison">Predicted against measured after SEM, or null.</param>
 /// <param name="Verdict">The QC verdict with its rules.</param>
+/// <param name="Diffusion">The diffusion radius model the wafer was judged with, or null when it was not applied.</param>
 public sealed record WaferReport(
     ReportIdentity Identity,
     ThermalSummary Thermal,
@@ -26,7 +27,8 @@ public sealed record WaferReport(
     double CaptureRadiusNm,
     RadiusPrediction? Prediction,
     PredictedVsMeasured? Comparison,
-    QcVerdict Verdict)
+    QcVerdict Verdict,
+    DiffusionModelFigures? Diffusion = null)
 {
     /// <summary>Revision, reason, requester and what the report was made from; null for a report that is not a stored record.</summary>
     public ReportProvenance? Provenance { get; init; }

@@ -11,7 +11,7 @@ using static RunWatch.Reports.Rendering.ReportFormat;
 namespace RunWatch.Reports.Pdf;
 
 /// <summary>Writes a wafer report as an A4 PDF through SkiaSharp's SKDocument (text stays extractable).</summary>
-public static class PdfReportWriter
+public static partial class PdfReportWriter
 {
     /// <summary>At most this many wire rows are printed; the CSV holds them all.</summary>
     public const int MaxWireRows = 60;
@@ -201,6 +201,11 @@ public static class PdfReportWriter
     {
         page.Heading("Radius model", keepWithNext: page.ImageHeight(chart.Png, page.ContentWidth * 0.8f, caption: false));
         page.Image(chart.Png, page.ContentWidth * 0.8f);
+        if (report.Diffusion is { } diffusion)
+        {
+            DiffusionModel(page, diffusion);
+            return;
+        }
         if (report.Model is not { } m)
         {
             page.Paragraph("No accepted radius model for this process yet.");

@@ -5,11 +5,13 @@ using RunWatch.Storage;
 namespace RunWatch.Wafers.Pipeline;
 
 /// <summary>
-/// Proposes a process's models from its stored wafers: the Arrhenius calibration from the wafers' best-fit capture
-/// radii (ln(L²/(c·t)) against 1/T_eff gives Ea and D0) and the radius model from their measured wires. Results are
-/// stored as proposals; a person accepts them before anything uses them.
+/// Proposes a process's models from its stored wafers: the diffusion radius model (λ₀², E_λ, κ, r₀ fitted jointly to
+/// the per-wire radii over each wafer's real thermal history, with profile-likelihood intervals, or a refusal with its
+/// reason), and the simpler options kept for comparison: the Arrhenius calibration from the wafers' best-fit capture
+/// radii and the Â regression. Results are stored as proposals; a person accepts them before anything uses them.
 /// </summary>
-public sealed class ProcessCalibrationService(IWaferStore wafers, TimeProvider time)
+public sealed partial class ProcessCalibrationService(IWaferStore wafers, TimeProvider time, IRunWatchStore? store = null,
+    Microsoft.Extensions.Options.IOptions<WaferPipelineOptions>? options = null)
 {
     private const int MaxWafers = 10_000;
 
@@ -108,13 +110,14 @@ public sealed class ProcessCalibrationService(IWaferStore wafers, TimeProvider t
     /// <exception cref="InvalidOperationException">Neither could be fitted; the message says what is missing.</exception>
     public async Task<ProcessRefit> RefitAsync(string process, CancellationToken cancellationToken)
     {
+        DiffusionRefit diffusion = await ProposeDiffusionModelAsync(process, cancellationToken).ConfigureAwait(false);
         var radius = await ProposeRadiusModelAsync(process, cancellationToken).ConfigureAwait(false);
         var arrhenius = await ProposeAsync(process, cancellationToken).ConfigureAwait(false);
-        if (radius is null && arrhenius is null)
+        if (!diffusion.Proposed && radius is null && arrhenius is null)
         {
-            throw new InvalidOperationException($"Nothing to refit for process {process}: it needs at least three measured wires for the radius model, " +
-                "and wafers with a located capture radius at two or more temperatures for the Arrhenius fit.");
+            throw new InvalidOperationException($"Nothing to refit for process {process}: the diffusion model was not fitted ({diffusion.Reason}); " +
+                "the Â regression needs at least three measured wires, and the Arrhenius fit wafers with a located capture radius at two or more temperatures.");
         }
-        return new ProcessRefit(process, radius?.Fit, radius?.Record, arrhenius?.Fit, arrhenius?.Record);
+        return new ProcessRefit(process, radius?.Fit, radius?.Record, arrhenius?.Fit, arrhenius?.Record, diffusion);
     }
 }

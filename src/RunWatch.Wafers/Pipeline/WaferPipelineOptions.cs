@@ -29,6 +29,22 @@ public sealed class WaferPipelineOptions
     public double CaptureRadiusSearchMax { get; set; } = 3.0;
 
     /// <summary>
+    /// Radius model of the wafer verdict: <c>Diffusion</c> (the diffusion solution over the run's real history),
+    /// <c>VoronoiDisc</c> (the same with Voronoi ∩ disc(λ) areas) or <c>CaptureAreaRegression</c> (the older Â
+    /// regression, kept for comparison). <value>Default <c>Diffusion</c>.</value>
+    /// </summary>
+    public RunWatch.Core.Wafers.WaferRadiusModel RadiusModel { get; set; } = RunWatch.Core.Wafers.WaferRadiusModel.Diffusion;
+
+    /// <summary>Cell side of the diffusion solution, nm (never more than λ/4). <value>Default 20.</value></summary>
+    public double CaptureCellNm { get; set; } = 20;
+
+    /// <summary>Smallest capture length a diffusion-model refit may use, µm. <value>Default 0.1.</value></summary>
+    public double CalibrationLambdaMinUm { get; set; } = 0.1;
+
+    /// <summary>Largest capture length a diffusion-model refit may use, µm. <value>Default 3.</value></summary>
+    public double CalibrationLambdaMaxUm { get; set; } = 3.0;
+
+    /// <summary>
     /// Longest one field's analysis may take; a field over it is marked failed and the queue moves on (the bounded
     /// inputs keep real fields far below it: a 100-megapixel field takes seconds). <value>Default 2 minutes.</value>
     /// </summary>
@@ -76,6 +92,18 @@ public sealed class WaferPipelineOptions
         if (!(CaptureRadiusSearchMin > 0 && CaptureRadiusSearchMax > CaptureRadiusSearchMin))
         {
             problems.Add("WaferPipeline:CaptureRadiusSearchMin must be > 0 and below CaptureRadiusSearchMax");
+        }
+        if (!Enum.IsDefined(RadiusModel))
+        {
+            problems.Add("WaferPipeline:RadiusModel must be Diffusion, VoronoiDisc or CaptureAreaRegression");
+        }
+        if (!(CaptureCellNm >= 2 && CaptureCellNm <= 500))
+        {
+            problems.Add("WaferPipeline:CaptureCellNm must be 2 … 500");
+        }
+        if (!(CalibrationLambdaMinUm > 0 && CalibrationLambdaMaxUm > CalibrationLambdaMinUm && CalibrationLambdaMaxUm <= 100))
+        {
+            problems.Add("WaferPipeline:CalibrationLambdaMinUm must be > 0 and below CalibrationLambdaMaxUm (at most 100 µm)");
         }
         return problems;
     }

@@ -4,6 +4,7 @@ using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Excursions;
 using RunWatch.Core.Model;
+using RunWatch.Core.Model.Diffusion;
 using RunWatch.Core.Qc;
 using RunWatch.Core.Thermal;
 using RunWatch.Core.Wafers;
@@ -100,6 +101,17 @@ public sealed class WaferReportService
         string recipe = run?.Recipe ?? record.Process ?? _options.DefaultProcess;
         string process = record.Process ?? recipe;
         (RadiusModelFit? accepted, string modelId) = await AcceptedModelAsync(process, cancellationToken).ConfigureAwait(false);
+        (ModelFitRecord Record, DiffusionModelParams Params)? diffusion = null;
+        ThermalExposure? exposure = null;
+        string? exposureMissing = null;
+        if (_options.RadiusModel != WaferRadiusModel.CaptureAreaRegression)
+        {
+            diffusion = await RunGrowthHistory.AcceptedModelAsync(_wafers, process, cancellationToken).ConfigureAwait(false);
+            if (diffusion is not null)
+            {
+                (exposure, exposureMissing) = await new RunGrowthHistory(_store).LoadAsync(run, cancellationToken).ConfigureAwait(false);
+            }
+        }
         RunExcursions excursions = RunExcursions.From(run);
         // The stored specification (seeded from configuration, edited by admins) when the store keeps them.
         QcSpecification specification;
@@ -116,11 +128,18 @@ public sealed class WaferReportService
             specification = new QcSpecification();
             unspecified = true;
         }
-        var evaluation = WaferEvaluator.Evaluate(new WaferEvaluationInput
+        // The diffusion options solve the field several times: off the caller's thread.
+        var evaluation = await Task.Run(() => WaferEvaluator.Evaluate(new WaferEvaluationInput
         {
             WaferId = wafer,
             Recipe = recipe,
+            Process = process,
             Fields = fields,
+            RadiusModel = _options.RadiusModel,
+            DiffusionModel = diffusion?.Params.Model,
+            GrowthExposure = exposure,
+            GrowthExposureMissing = exposureMissing,
+            CaptureTable = new CaptureTableOptions { CellSizeUm = _options.CaptureCellNm / 1000 },
             AcceptedModel = accepted,
             Thermal = new RunThermalFacts(run?.LEffNm, run?.Coverage, excursions.Count, excursions.MaxAbsRelativeLChange),
             Specification = specification,
@@ -128,7 +147,10 @@ public sealed class WaferReportService
             PredictionFields = _options.PredictionFields,
             CaptureRadiusSearchMin = _options.CaptureRadiusSearchMin,
             CaptureRadiusSearchMax = _options.CaptureRadiusSearchMax,
-        });
+        }), cancellationToken).ConfigureAwait(false);
+        DiffusionModelFigures? diffusionFigures = evaluation.Diffusion is { } applied && diffusion is { } used
+            ? new DiffusionModelFigures(used.Record.Id, used.Params.Model, applied, run?.Summary?.Diffusion?.MeanRadiusNm, run?.Summary?.Diffusion?.RadiusSdNm)
+            : null;
         if (evaluation.ModelFittedOnThisWafer && evaluation.Model is not null)
         {
             // Proposed, never accepted automatically: a person accepts process models.
@@ -190,19 +212,22 @@ public sealed class WaferReportService
             run?.LEffNm ?? double.NaN,
             evaluation.Prediction,
             evaluation.Comparison,
-            verdictInForce);
+            verdictInForce,
+            diffusionFigures);
 
         string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce,
-            evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null));
+            evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null,
+            diffusionFigures is null ? null : DiffusionDigest(diffusionFigures)));
         string verdict = verdictInForce.Outcome.ToString().ToLowerInvariant();
         var (reason, requester, answered) = await ReasonAsync(wafer, onDemand, cancellationToken).ConfigureAwait(false);
-        if (!evaluation.ModelFittedOnThisWafer && accepted is null)
-        {
-            modelId = "none accepted";
-        }
-        else if (evaluation.ModelFittedOnThisWafer)
+        if (evaluation.ModelFittedOnThisWafer)
         {
             modelId = "fitted on this wafer (proposed, not accepted)";
+        }
+        if (diffusionFigures is not null)
+        {
+            // The verdict's radius model is the accepted diffusion model; the Â regression is named beside it.
+            modelId = string.Create(CultureInfo.InvariantCulture, $"diffusion radius model fit #{diffusionFigures.ModelFitId}; Â regression: {modelId}");
         }
         string configJson = ConfigJson(recipe, specification, unspecified);
         var (revision, written) = await ReportRevisionWriter.WriteAsync(report,
@@ -270,6 +295,13 @@ public sealed class WaferReportService
                 _options.DefaultProcess,
             },
         }, PipelineJson.Options);
+
+    private static WaferDiffusionDigest DiffusionDigest(DiffusionModelFigures d)
+    {
+        WaferDiffusionFigures f = d.Figures;
+        return new WaferDiffusionDigest(d.ModelFitId, f.Method.ToString(), f.MeanTemperatureC, f.CoveredS, f.LambdaAtMeanUm * 1000,
+            double.IsFinite(f.LambdaEffUm) ? f.LambdaEffUm * 1000 : null, f.LambdaMinUm * 1000, f.LambdaMaxUm * 1000, f.PredictedWires, f.GuardedWires, f.Extrapolated);
+    }
 
     private static string UnspecifiedText(string recipe) =>
         $"No QC specification for recipe '{recipe}' and no default specification: judged against an unspecified specification (no limits); add one on the Settings page.";

@@ -6,4 +6,4 @@ namespace RunWatch.Web.Data;
 /// newest proposal); <see cref="CandidateArrhenius"/> is a proposed Arrhenius fit not yet accepted.
 /// </summary>
 public sealed record ProcessModelView(string Process, RadiusFit Current, RadiusFit? Candidate, ArrheniusFit Arrhenius, IReadOnlyList<ModelPoint> RadiusData,
-    IReadOnlyList<ArrheniusPoint> ArrheniusData, string? AcceptedBy, DateTimeOffset? AcceptedAt, ArrheniusFit? CandidateArrhenius = null);
+    IReadOnlyList<ArrheniusPoint> ArrheniusData, string? AcceptedBy, DateTimeOffset? AcceptedAt, ArrheniusFit? CandidateArrhenius = null, DiffusionModelView? Diffusion = null);

@@ -52,6 +52,7 @@ public sealed class WaferEvaluatorTests
         WaferId = "W-TEST-1",
         Recipe = "invented-recipe",
         Fields = fields,
+        RadiusModel = WaferRadiusModel.CaptureAreaRegression, // these tests check the regression option
         AcceptedModel = accepted,
         Thermal = new RunThermalFacts(LNm, 1.0, 0, 0.0),
         Specification = spec ?? new QcSpecification(),

@@ -4,6 +4,7 @@ using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
 using RunWatch.Core.Excursions;
 using RunWatch.Core.Qc;
+using RunWatch.Core.Wafers;
 using RunWatch.Wafers.Intake;
 using RunWatch.Wafers.Pipeline;
 using RunWatch.Simulation.Demo;
@@ -113,10 +114,18 @@ public sealed class WaferPipelineTests : IAsyncLifetime
             Assert.Equal(4, (await _store.GetReportsAsync(wafer, default)).Count);
             Assert.True(File.ReadAllLines(outcome.Files["csv"]).Length > 50, "every wire in the CSV");
         }
-        // The run's recipe has no accepted model: the first report proposes one, never accepts it.
-        var fits = await _store.GetModelFitsAsync("invented-recipe", ModelKinds.Radius, 10, default);
-        Assert.NotEmpty(fits);
-        Assert.All(fits, f => Assert.Null(f.AcceptedBy));
+        // The run's recipe has no accepted diffusion model (the default radius model): each verdict says so and what to do,
+        // and a report never proposes or accepts a model by itself (a refit on the Process model screen proposes one).
+        foreach (string wafer in new[] { "W-T1-A", "W-T1-B" })
+        {
+            WaferReportOutcome again = await _reports.WriteAsync(wafer, default);
+            QcRuleResult rule = Assert.Single(again.Verdict.Rules, r => r.Rule == WaferEvaluator.RadiusModelRule);
+            Assert.Equal(QcOutcome.Warn, rule.Outcome);
+            Assert.Contains("No accepted diffusion radius model for process 'invented-recipe'", rule.Reason, StringComparison.Ordinal);
+            Assert.Contains("Refit", rule.Reason, StringComparison.Ordinal);
+        }
+        Assert.Empty(await _store.GetModelFitsAsync("invented-recipe", ModelKinds.Radius, 10, default));
+        Assert.Empty(await _store.GetModelFitsAsync("invented-recipe", ModelKinds.Diffusion, 10, default));
     }
 
     [Fact]

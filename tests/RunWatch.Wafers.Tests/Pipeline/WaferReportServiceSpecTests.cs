@@ -61,7 +61,11 @@ public sealed class WaferReportServiceSpecTests : IDisposable
         var audit = await reopened.GetAuditAsync(10, CancellationToken.None);
         reopened.Dispose();
 
-        Assert.Equal(QcOutcome.Pass, before.Verdict.Outcome);
+        // Before the edit every specified rule passes; the verdict is WARN only because the process has no accepted
+        // diffusion radius model (the default model), which the verdict says.
+        Assert.Equal(QcOutcome.Pass, before.Verdict.Rules.Single(r => r.Rule == "mean-radius").Outcome);
+        Assert.Equal(QcOutcome.Pass, before.Verdict.Rules.Single(r => r.Rule == "wire-count").Outcome);
+        Assert.Equal(WaferEvaluator.RadiusModelRule, Assert.Single(before.Verdict.Reasons).Rule);
         Assert.Equal(QcOutcome.Fail, after.Verdict.Outcome);
         QcRuleResult meanRule = after.Verdict.Rules.Single(r => r.Rule == "mean-radius");
         Assert.Equal(QcOutcome.Fail, meanRule.Outcome);

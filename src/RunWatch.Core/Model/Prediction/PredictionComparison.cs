@@ -32,7 +32,42 @@ public static class PredictionComparison
         {
             throw new ArgumentException($"Need at least 2 wires with finite Â and radius; got {n}.", nameof(normalisedAreas));
         }
-        double meanMeasured = sumMeasured / n;
+        return Agreement(predicted, measuredRadiiNm, n, sumMeasured / n);
+    }
+
+    /// <summary>
+    /// Compares radii already predicted by any model (the diffusion model's, for one); wires with a non-finite
+    /// prediction or radius are skipped (their prediction is NaN in the result).
+    /// </summary>
+    /// <exception cref="ArgumentException">Lengths differ, or fewer than two comparable wires.</exception>
+    public static PredictedVsMeasured CompareRadii(ReadOnlySpan<double> predictedRadiiNm, ReadOnlySpan<double> measuredRadiiNm)
+    {
+        if (predictedRadiiNm.Length != measuredRadiiNm.Length)
+        {
+            throw new ArgumentException($"{predictedRadiiNm.Length} predictions but {measuredRadiiNm.Length} radii.", nameof(measuredRadiiNm));
+        }
+        var predicted = new double[predictedRadiiNm.Length];
+        int n = 0;
+        double sumMeasured = 0;
+        for (int i = 0; i < predicted.Length; i++)
+        {
+            bool usable = double.IsFinite(predictedRadiiNm[i]) && double.IsFinite(measuredRadiiNm[i]);
+            predicted[i] = usable ? predictedRadiiNm[i] : double.NaN;
+            if (usable)
+            {
+                n++;
+                sumMeasured += measuredRadiiNm[i];
+            }
+        }
+        if (n < 2)
+        {
+            throw new ArgumentException($"Need at least 2 wires with a finite prediction and radius; got {n}.", nameof(predictedRadiiNm));
+        }
+        return Agreement(predicted, measuredRadiiNm, n, sumMeasured / n);
+    }
+
+    private static PredictedVsMeasured Agreement(double[] predicted, ReadOnlySpan<double> measuredRadiiNm, int n, double meanMeasured)
+    {
         double ssErr = 0;
         double ssTot = 0;
         double bias = 0;

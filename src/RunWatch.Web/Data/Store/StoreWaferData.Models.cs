@@ -17,7 +17,8 @@ public sealed partial class StoreWaferData
     {
         var radius = await wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false);
         var arrheniusFits = await wafers.GetModelFitsAsync(process, ModelKinds.Arrhenius, 50, cancellationToken).ConfigureAwait(false);
-        if (radius.Count == 0 && arrheniusFits.Count == 0)
+        DiffusionModelView? diffusion = await DiffusionModelAsync(process, cancellationToken).ConfigureAwait(false);
+        if (radius.Count == 0 && arrheniusFits.Count == 0 && diffusion is null)
         {
             return null;
         }
@@ -38,24 +39,29 @@ public sealed partial class StoreWaferData
         IReadOnlyList<ModelPoint> wires = await RadiusDataAsync(process, cancellationToken).ConfigureAwait(false);
         // With nothing accepted yet the newest proposal is shown as the model and offered for acceptance.
         return new ProcessModelView(process, current, candidate is null ? null : ToRadiusFit(candidate), arrhenius, wires, points,
-            accepted?.AcceptedBy, accepted?.AcceptedAt, acceptedArrhenius is not null && candidateArrhenius is not null ? ToArrhenius(candidateArrhenius) : null);
+            accepted?.AcceptedBy, accepted?.AcceptedAt, acceptedArrhenius is not null && candidateArrhenius is not null ? ToArrhenius(candidateArrhenius) : null, diffusion);
     }
 
     /// <summary>
-    /// Accepts, in the name of <paramref name="user"/>, the newest proposed radius model and the newest proposed
-    /// Arrhenius calibration of the process (each when newer than the one accepted); returns what was accepted.
+    /// Accepts, in the name of <paramref name="user"/>, the newest proposed diffusion model, radius model and Arrhenius
+    /// calibration of the process (each when newer than the one accepted); returns what was accepted.
     /// </summary>
     /// <exception cref="InvalidOperationException">Nothing is proposed.</exception>
     public async Task<string> AcceptModelAsync(string process, string user, CancellationToken cancellationToken)
     {
         var accepted = new List<string>();
-        foreach (string model in new[] { ModelKinds.Radius, ModelKinds.Arrhenius })
+        foreach (string model in new[] { ModelKinds.Diffusion, ModelKinds.Radius, ModelKinds.Arrhenius })
         {
             var fits = await wafers.GetModelFitsAsync(process, model, 50, cancellationToken).ConfigureAwait(false);
             if (AcceptedAndProposed(fits).Proposed is { } proposed)
             {
                 await wafers.AcceptModelFitAsync(proposed.Id, user, cancellationToken).ConfigureAwait(false);
-                accepted.Add(model == ModelKinds.Radius ? "radius model " + Describe(ToRadiusFit(proposed)) : "Arrhenius fit " + Describe(ToArrhenius(proposed)));
+                accepted.Add(model switch
+                {
+                    ModelKinds.Diffusion => "diffusion model " + DescribeDiffusion(proposed),
+                    ModelKinds.Radius => "radius model " + Describe(ToRadiusFit(proposed)),
+                    _ => "Arrhenius fit " + Describe(ToArrhenius(proposed)),
+                });
             }
         }
         if (accepted.Count == 0)

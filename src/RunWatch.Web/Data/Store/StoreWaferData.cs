@@ -35,9 +35,11 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         WaferReportRecord? csv = reports.FirstOrDefault(r => r.Format == "csv");
         WaferStatistics? statistics = null;
         VerdictView? verdict = null;
+        WaferDiffusionView? diffusion = null;
         if (json?.SummaryJson is { } summary)
         {
             (statistics, verdict) = ReadSummary(summary, json.CreatedAt);
+            diffusion = DiffusionOf(WaferReportDigestJson.Read(summary));
         }
         IReadOnlyList<WireMeasurement> wires = csv is not null && File.Exists(csv.FilePath) ? await ReadWiresAsync(csv.FilePath, cancellationToken).ConfigureAwait(false) : [];
         if (statistics is not null)
@@ -48,7 +50,8 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
                 MeanNormalisedCaptureArea = MeanNormalisedArea(wires),
             };
         }
-        return new WaferDetail(waferId, run?.Name ?? "", fields, statistics, wires, verdict, [.. reports.Select(r => r.Format).OrderBy(f => f, StringComparer.Ordinal)]);
+        return new WaferDetail(waferId, run?.Name ?? "", fields, statistics, wires, verdict, [.. reports.Select(r => r.Format).OrderBy(f => f, StringComparer.Ordinal)],
+            diffusion);
     }
 
     public async Task<ReportFile?> GetReportAsync(string waferId, string format, CancellationToken cancellationToken)
