@@ -41,6 +41,8 @@ public static class StorageServiceCollectionExtensions
             services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<IReportRevisionStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
+            services.TryAddSingleton<INoteStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
+            services.TryAddSingleton<IFieldListStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
         }
         else
         {
@@ -50,6 +52,8 @@ public static class StorageServiceCollectionExtensions
             services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<IReportRevisionStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+            services.TryAddSingleton<INoteStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+            services.TryAddSingleton<IFieldListStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
         }
         services.TryAddSingleton<QcSpecificationCatalog>();
         return services;

@@ -7,6 +7,12 @@ namespace RunWatch.Core.Qc;
 /// </summary>
 public sealed class QcSpecification
 {
+    /// <summary>Lower bound (exclusive) of <see cref="DropletContactAngleDeg"/>: at 90° the droplet's equator sits on the facet edge.</summary>
+    public const double MinDropletContactAngleDeg = 90;
+
+    /// <summary>Upper bound (exclusive) of <see cref="DropletContactAngleDeg"/>: at 180° the droplet would not wet the top at all.</summary>
+    public const double MaxDropletContactAngleDeg = 180;
+
     /// <summary>Target mean wire radius (nm).</summary>
     public double? TargetMeanRadiusNm { get; set; }
 
@@ -67,6 +73,14 @@ public sealed class QcSpecification
     /// <summary>Fail when fewer wires were measured than this: the statistics are too thin to judge.</summary>
     public int? MinWireCount { get; set; }
 
+    /// <summary>
+    /// Contact angle θ of the catalyst droplet on the wire top for this process (degrees, 90 &lt; θ &lt; 180), or null when
+    /// unknown. Where a field shows only the droplet, the analysis takes the wire radius as r_drop·sin θ (a spherical cap
+    /// with θ &gt; 90° shows its equator from above; DERIVED); without it such wires keep their droplet radius only and stay
+    /// out of the radius statistics. Not a QC limit: a process property the measurement needs.
+    /// </summary>
+    public double? DropletContactAngleDeg { get; set; }
+
     /// <summary>Outcome of a configured rule whose measurement is missing.</summary>
     /// <value><see cref="QcOutcome.Warn"/></value>
     public QcOutcome MissingValueOutcome { get; set; } = QcOutcome.Warn;
@@ -113,6 +127,10 @@ public sealed class QcSpecification
         if (WarnMinDensityPerCm2 is { } a && WarnMaxDensityPerCm2 is { } b && !(b > a))
         {
             errors.Add("The warn density window is empty (WarnMaxDensityPerCm2 ≤ WarnMinDensityPerCm2).");
+        }
+        if (DropletContactAngleDeg is { } theta && !(theta > MinDropletContactAngleDeg && theta < MaxDropletContactAngleDeg))
+        {
+            errors.Add($"DropletContactAngleDeg must lie between {MinDropletContactAngleDeg}° and {MaxDropletContactAngleDeg}° exclusive (a droplet wider than its facet; got {theta}).");
         }
         if (MinWireCount is < 1)
         {

@@ -26,7 +26,7 @@ public static partial class FieldAnalyzer
             if (Aspect(r) <= rules.MaxAspectRatio && Solidity(r) >= rules.MinSolidity)
             {
                 candidateAreas.Add(r.Area);
-                if (edges is not null && edges[i].ValidRays >= EdgeRefiner.Rays - 8 && edges[i].Irregularity <= rules.MaxIrregularity)
+                if (edges is not null && edges[i].ValidRays >= EdgeRefiner.MostRays && edges[i].Irregularity <= rules.MaxIrregularity)
                 {
                     EdgeProfile e = edges[i];
                     (e.SixFold >= rules.MaxDropletSixFold ? contrasts : roundContrasts).Add(e.Top - e.Substrate);
@@ -68,7 +68,7 @@ public static partial class FieldAnalyzer
             for (int i = 0; i < raw.Count; i++)
             {
                 EdgeProfile e = edges[i];
-                if (e.ValidRays >= EdgeRefiner.Rays - 8 && e.SixFold < rules.MaxDropletSixFold && e.Irregularity <= rules.MaxIrregularity
+                if (e.ValidRays >= EdgeRefiner.MostRays && e.SixFold < rules.MaxDropletSixFold && e.Irregularity <= rules.MaxIrregularity
                     && (e.Top - e.Substrate) / tiles.At(raw[i].CentroidX, raw[i].CentroidY) > rules.MaxRelativeContrast)
                 {
                     dropletSet.Add(i);
@@ -85,7 +85,7 @@ public static partial class FieldAnalyzer
         {
             RawWire r = raw[i];
             EdgeProfile e = edges is null ? default : edges[i];
-            bool hasEdge = e.ValidRays >= 12 && e.HalfLevelArea > 0;
+            bool hasEdge = e.ValidRays >= EdgeRefiner.Rays / 4 && e.HalfLevelArea > 0;
             double relative = hasEdge ? (e.Top - e.Substrate) / tiles.At(r.CentroidX, r.CentroidY) : double.NaN;
             double irregularLimit = hasEdge ? Math.Max(rules.MaxIrregularity, 2.5 * noiseIrregularity / Math.Sqrt(e.HalfLevelArea / Math.PI)) : rules.MaxIrregularity;
             // A split piece's Feret box includes its cut; the located edge rays do not (the cut's rays are blocked).

@@ -205,7 +205,7 @@ public static partial class FieldAnalyzer
             ScaleBarLength = scaleBar * (scale.HasScale ? scale.PixelSizeNm!.Value : 1),
             EdgeSigmaPixels = edgeSigma,
             EdgeOffsetPixels = edgeOffset,
-            RadiusMethod = options.SubPixelEdges ? "half-maximum edge along 48 rays, blur-corrected (docs/imaging.md)" : "threshold outline area",
+            RadiusMethod = options.SubPixelEdges ? $"half-maximum edge along {EdgeRefiner.Rays} rays, blur-corrected (docs/imaging.md)" : "threshold outline area",
             Wires = wires,
             Statistics = stats,
             Notes = notes,

@@ -1,3 +1,6 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+
 namespace RunWatch.Imaging.Measurement;
 
 /// <summary>
@@ -14,6 +17,8 @@ namespace RunWatch.Imaging.Measurement;
 internal sealed class EdgeRefiner
 {
     public const int Rays = 48;
+    /// <summary>Located rays an object needs for its shape features and to serve as a reference (5/6 of <see cref="Rays"/>).</summary>
+    public const int MostRays = Rays - (Rays / 6);
     private const double Step = 0.25;
     private const double OutsideReach = 4.5;
     private const double SubstrateFrom = 2.5;
@@ -29,6 +34,15 @@ internal sealed class EdgeRefiner
     private int _stride;
     private readonly int[] _length = new int[Rays];
     private readonly int[] _first = new int[Rays];
+    /// <summary>First sample index filled per ray: only the window around the outline is sampled (the inside on demand, for a droplet core).</summary>
+    private readonly int[] _start = new int[Rays];
+    private readonly double[] _anchor = new double[Rays];
+    private double _cx;
+    private double _cy;
+    private double _cosTilt;
+    private int _patchWidth;
+    private int _patchRows;
+    private bool _interior;
     private readonly byte[] _state = new byte[Rays];
     private readonly double[] _edge = new double[Rays];
     private readonly double[] _mean = new double[Bins];
@@ -71,10 +85,12 @@ internal sealed class EdgeRefiner
                 result.BlockedRays += _state[k] == Blocked ? 1 : 0;
                 continue;
             }
+            // Every other sample (½ px apart; the blur correlates neighbours anyway).
             int from = _first[k] + (int)(SubstrateFrom / Step);
-            for (int s = from; s < _length[k]; s++)
+            ReadOnlySpan<float> ray = _samples.AsSpan(k * stride, _length[k]);
+            for (int s = from; s < ray.Length; s += 2)
             {
-                _pool[pooled++] = _samples[(k * stride) + s];
+                _pool[pooled++] = ray[s];
             }
         }
         if (pooled < 8)
@@ -82,22 +98,15 @@ internal sealed class EdgeRefiner
             return result;
         }
         result.Substrate = Median(_pool.AsSpan(0, pooled));
-        pooled = 0;
-        for (int k = 0; k < Rays; k++)
-        {
-            if (_state[k] is Clean or Crowded)
-            {
-                int end = (int)(0.4 * _first[k]);
-                for (int s = 0; s <= end; s++)
-                {
-                    _pool[pooled++] = _samples[(k * stride) + s];
-                }
-            }
-        }
-        result.Centre = pooled > 0 ? Median(_pool.AsSpan(0, pooled)) : double.NaN;
+        result.Centre = InnerMedian();
 
         // Levels from the mean profile aligned on the threshold outline; then each ray's half-level crossing.
-        MeanProfile(k => _first[k]);
+        for (int k = 0; k < Rays; k++)
+        {
+            _anchor[k] = _first[k];
+        }
+        // Only the bins the peak search reads.
+        MeanProfile(BinZero - 6, BinZero + 3, 1);
         double top = Peak();
         double level = 0.5 * (result.Substrate + top);
         int valid = 0;
@@ -114,7 +123,7 @@ internal sealed class EdgeRefiner
         }
         result.ValidRays = valid;
         result.Top = top;
-        if (valid < 6)
+        if (valid < Rays / 8)
         {
             return result;
         }
@@ -122,7 +131,12 @@ internal sealed class EdgeRefiner
         result.HalfLevelArea = Math.PI * sumR2 / valid;
 
         // Edge width from the mean profile aligned on the located edges: σ = u(15.87 %) − u(50 %) on the outer flank (erf).
-        MeanProfile(k => double.IsNaN(_edge[k]) ? -1 : _edge[k] / Step);
+        for (int k = 0; k < Rays; k++)
+        {
+            _anchor[k] = double.IsNaN(_edge[k]) ? -1 : _edge[k] / Step;
+        }
+        // Every other ray carries the full window: half the rays describe the profile's shape as well (it is a mean).
+        MeanProfile(0, Bins, 2);
         double peak = Peak();
         result.EdgeSigma = FlankWidth(result.Substrate, peak);
         if (peak > result.Substrate)
@@ -143,10 +157,11 @@ internal sealed class EdgeRefiner
     private void Sample(ushort[] fullImage, int[] fullLabels, int fullWidth, int fullRowStart, int fullRowEnd, in RawWire wire, double cosTilt, int stride)
     {
         // Copy the object's neighbourhood once (row by row): rays then read a small cache-resident patch instead of
-        // striding through the whole image's rows.
-        double reach = (stride + 1) * Step;
-        int px0 = Math.Max(0, (int)Math.Floor(wire.CentroidX - reach) - 1), px1 = Math.Min(fullWidth - 1, (int)Math.Ceiling(wire.CentroidX + reach) + 1);
-        int py0 = Math.Max(fullRowStart, (int)Math.Floor(wire.CentroidY - reach) - 1), py1 = Math.Min(fullRowEnd - 1, (int)Math.Ceiling(wire.CentroidY + reach) + 1);
+        // striding through the whole image's rows. A ray stops 4½ px (sample plane; less in the image) after it
+        // leaves the object, so the bounding box and a 6 px margin hold every sample; only the image's border cuts it.
+        const int Margin = 6;
+        int px0 = Math.Max(0, wire.MinX - Margin), px1 = Math.Min(fullWidth - 1, wire.MaxX + Margin);
+        int py0 = Math.Max(fullRowStart, wire.MinY - Margin), py1 = Math.Min(fullRowEnd - 1, wire.MaxY + Margin);
         int width = px1 - px0 + 1, rows = py1 - py0 + 1;
         if (_patchImage.Length < width * rows)
         {
@@ -158,100 +173,244 @@ internal sealed class EdgeRefiner
             Array.Copy(fullImage, ((py0 + y) * fullWidth) + px0, _patchImage, y * width, width);
             Array.Copy(fullLabels, ((py0 + y) * fullWidth) + px0, _patchLabels, y * width, width);
         }
-        ushort[] image = _patchImage;
-        int[] labels = _patchLabels;
-        // Patch coordinates; the patch's rows stand for [py0, py1] and its edges are the image's or beyond every ray's reach.
-        int rowStart = 0, rowEnd = rows;
+        ReadOnlySpan<int> labels = _patchLabels.AsSpan(0, width * rows);
         int label = wire.Label;
         double cx = wire.CentroidX - px0, cy = wire.CentroidY - py0;
+        _cx = cx;
+        _cy = cy;
+        _cosTilt = cosTilt;
+        _patchWidth = width;
+        _patchRows = rows;
+        _interior = px0 > 0 && py0 > fullRowStart && px1 < fullWidth - 1 && py1 < fullRowEnd - 1;
         int outside = (int)(OutsideReach / Step);
         for (int k = 0; k < Rays; k++)
         {
-            double dx = Cos[k], dy = Sin[k] * cosTilt;
-            int n = 0;
+            // The walk reads labels only; the image is sampled afterwards, in the window the edge step uses.
+            double dx = Cos[k] * Step, dy = Sin[k] * cosTilt * Step;
             int first = -1;
             byte state = Lost;
-            for (int s = 0; s < stride; s++)
+            int n = 0;
+            // Inside the object: ½ px strides (a feature narrower than that does not end the object), then back to
+            // the first ¼ px sample that left it.
+            int s = 0;
+            int at = LabelAt(labels, width, rows, cx, cy);
+            while (at == label)
             {
-                double t = s * Step;
-                double x = cx + (t * dx), y = cy + (t * dy);
-                if (x < 0 || y < rowStart || x >= width || y >= rowEnd)
+                int next = s + 2;
+                if (next >= stride || LabelAt(labels, width, rows, cx + (next * dx), cy + (next * dy)) != label)
+                {
+                    // Resolve the stride sample by sample.
+                    for (s++; s <= Math.Min(next, stride - 1); s++)
+                    {
+                        at = LabelAt(labels, width, rows, cx + (s * dx), cy + (s * dy));
+                        if (at != label)
+                        {
+                            break;
+                        }
+                    }
+                    break;
+                }
+                s = next;
+            }
+            if (s >= stride || at == label)
+            {
+                state = Lost;
+                n = Math.Min(s, stride);
+            }
+            else if (at == OutsidePatch)
+            {
+                state = Lost;
+                n = s;
+            }
+            else if (at != 0)
+            {
+                state = Blocked;
+                n = s;
+            }
+            else
+            {
+                first = s;
+                int end = Math.Min(stride - 1, first + outside);
+                state = Clean;
+                n = end + 1;
+                // Outside: another object within reach crowds the ray; the samples stop before it.
+                // ½ px strides; a hit is resolved to the first ¼ px sample that shows it.
+                for (int t = first + 2; t - 1 <= end; t += 2)
+                {
+                    int probe = Math.Min(t, end);
+                    int there = LabelAt(labels, width, rows, cx + (probe * dx), cy + (probe * dy));
+                    if (there != OutsidePatch && (there == 0 || there == label))
+                    {
+                        continue;
+                    }
+                    if (probe - 1 > first)
+                    {
+                        int before = LabelAt(labels, width, rows, cx + ((probe - 1) * dx), cy + ((probe - 1) * dy));
+                        if (before == OutsidePatch || (before != 0 && before != label))
+                        {
+                            probe--;
+                            there = before;
+                        }
+                    }
+                    state = there == OutsidePatch ? Lost : Crowded;
+                    n = probe;
+                    break;
+                }
+                if (state == Clean && end < first + outside)
                 {
                     state = Lost;
-                    break;
-                }
-                int at = labels[((int)y * width) + (int)x];
-                if (first < 0 && at != label)
-                {
-                    if (at != 0)
-                    {
-                        state = Blocked;
-                        break;
-                    }
-                    first = s;
-                }
-                else if (first >= 0 && at != 0 && at != label)
-                {
-                    state = Crowded;
-                    break;
-                }
-                _samples[(k * stride) + n++] = Bilinear(image, width, rowStart, rowEnd, x - 0.5, y - 0.5);
-                if (first >= 0 && s >= first + outside)
-                {
-                    state = Clean;
-                    break;
                 }
             }
             _state[k] = first >= 0 && (state == Clean || (state == Crowded && n > first + (int)(1.5 / Step))) ? state : state == Blocked ? Blocked : Lost;
             _length[k] = n;
             _first[k] = first;
+            _start[k] = n;
+            if (_state[k] is Clean or Crowded)
+            {
+                if (k % 2 == 0)
+                {
+                    // Even rays: the whole window (the mean profile's shape, rims and flank).
+                    int from = Math.Max(0, first - Window);
+                    SampleRange(k, from, n, 1);
+                    _start[k] = from;
+                }
+                else
+                {
+                    // Odd rays: what the crossing reads (2 px inside to 2½ px outside) and the substrate's samples (every other).
+                    int from = Math.Max(0, first - CrossingInside);
+                    int crossingEnd = Math.Min(n, first + CrossingOutside + 1);
+                    SampleRange(k, from, crossingEnd, 1);
+                    int substrate = first + (int)(SubstrateFrom / Step);
+                    if (substrate < n)
+                    {
+                        SampleRange(k, substrate, n, 2);
+                    }
+                    _start[k] = from;
+                }
+            }
         }
     }
 
-    private static float Bilinear(ushort[] image, int width, int rowStart, int rowEnd, double x, double y)
+    private const int OutsidePatch = -1;
+
+    /// <summary>The label under a sample point (patch coordinates), or <see cref="OutsidePatch"/>.</summary>
+    private static int LabelAt(ReadOnlySpan<int> labels, int width, int rows, double x, double y) =>
+        x >= 0 && y >= 0 && x < width && y < rows ? labels[((int)y * width) + (int)x] : OutsidePatch;
+
+    /// <summary>Samples kept inside the outline per ray: 4¼ px, enough for the mean profile around an edge found up to 1 px inside it.</summary>
+    private const int Window = 17;
+
+    /// <summary>The crossing's search window around the outline, in samples: 2 px inside, 2½ px outside.</summary>
+    private const int CrossingInside = 8;
+    private const int CrossingOutside = 10;
+
+    /// <summary>Bilinear samples [<paramref name="from"/>, <paramref name="to"/>) of ray <paramref name="k"/> into its row of the sample table.</summary>
+    private void SampleRange(int k, int from, int to, int step)
     {
-        x = Math.Clamp(x, 0, width - 1.000001);
-        y = Math.Clamp(y, rowStart, rowEnd - 1.000001);
-        int x0 = (int)x, y0 = (int)y;
-        int x1 = Math.Min(width - 1, x0 + 1), y1 = Math.Min(rowEnd - 1, y0 + 1);
-        double fx = x - x0, fy = y - y0;
-        double top = (image[(y0 * width) + x0] * (1 - fx)) + (image[(y0 * width) + x1] * fx);
-        double bottom = (image[(y1 * width) + x0] * (1 - fx)) + (image[(y1 * width) + x1] * fx);
-        return (float)((top * (1 - fy)) + (bottom * fy));
+        ReadOnlySpan<ushort> image = _patchImage.AsSpan(0, _patchWidth * _patchRows);
+        Span<float> ray = _samples.AsSpan(k * _stride, to);
+        int width = _patchWidth;
+        float dx = (float)(Cos[k] * Step), dy = (float)(Sin[k] * _cosTilt * Step);
+        // Pixel centres sit at +½: sample coordinates shifted by −½.
+        float ox = (float)(_cx - 0.5), oy = (float)(_cy - 0.5);
+        if (_interior)
+        {
+            // The patch has its full margin on every side: every sample and its 2 × 2 neighbours lie inside it, so the
+            // reads skip the bounds checks (the hot loop of the edge step).
+            ref ushort origin = ref MemoryMarshal.GetArrayDataReference(_patchImage);
+            ref float target = ref MemoryMarshal.GetReference(ray);
+            for (int s = from; s < to; s += step)
+            {
+                float x = ox + (s * dx), y = oy + (s * dy);
+                int x0 = (int)x, y0 = (int)y;
+                float fx = x - x0, fy = y - y0;
+                ref ushort p = ref Unsafe.Add(ref origin, (y0 * width) + x0);
+                float p00 = p, p01 = Unsafe.Add(ref p, 1), p10 = Unsafe.Add(ref p, width), p11 = Unsafe.Add(ref p, width + 1);
+                float upper = p00 + (fx * (p01 - p00));
+                float lower = p10 + (fx * (p11 - p10));
+                Unsafe.Add(ref target, s) = upper + (fy * (lower - upper));
+            }
+            return;
+        }
+        float xMax = width - 1.0001f, yMax = _patchRows - 1.0001f;
+        for (int s = from; s < to; s += step)
+        {
+            // At the image's border the patch is cut: clamp, as the edge pixels continue outwards.
+            float x = Math.Clamp(ox + (s * dx), 0, xMax), y = Math.Clamp(oy + (s * dy), 0, yMax);
+            int x0 = (int)x, y0 = (int)y;
+            int at = (y0 * width) + x0;
+            float fx = x - x0, fy = y - y0;
+            float upper = image[at] + (fx * (image[at + 1] - image[at]));
+            float lower = image[at + width] + (fx * (image[at + width + 1] - image[at + width]));
+            ray[s] = upper + (fy * (lower - upper));
+        }
     }
 
-    /// <summary>Mean of the usable rays' profiles around an anchor (sample index, fractional allowed; negative = skip).</summary>
-    private void MeanProfile(Func<int, double> anchor)
+    /// <summary>Median level over the inner 40 % of the usable rays, sampled every pixel (a droplet raises it).</summary>
+    private double InnerMedian()
     {
-        Array.Clear(_mean);
-        Array.Clear(_count);
+        int pooled = 0;
+        bool centre = false;
         for (int k = 0; k < Rays; k++)
         {
             if (_state[k] is not (Clean or Crowded))
             {
                 continue;
             }
-            double a = anchor(k);
-            if (a < 0)
+            int end = (int)(0.4 * _first[k]);
+            // Every 4th sample (1 px apart); the centre itself once.
+            for (int s = centre ? 4 : 0; s <= end; s += 4)
+            {
+                if (s < _start[k])
+                {
+                    SampleRange(k, s, s + 1, 1);
+                }
+                _pool[pooled++] = _samples[(k * _stride) + s];
+            }
+            centre = true;
+        }
+        return pooled > 0 ? Median(_pool.AsSpan(0, pooled)) : double.NaN;
+    }
+
+    /// <summary>Fills the inside of ray <paramref name="k"/> (the droplet core needs the profile from the centre).</summary>
+    private void EnsureInside(int k)
+    {
+        if (_start[k] > 0)
+        {
+            SampleRange(k, 0, _start[k], 1);
+            _start[k] = 0;
+        }
+    }
+
+    /// <summary>Mean of the usable rays' profiles around each ray's anchor in <see cref="_anchor"/> (sample index, fractional allowed; negative = skip).</summary>
+    private void MeanProfile(int binFrom, int binTo, int rayStep)
+    {
+        Span<double> mean = _mean;
+        Span<int> count = _count;
+        mean.Clear();
+        count.Clear();
+        for (int k = 0; k < Rays; k += rayStep)
+        {
+            double a = _anchor[k];
+            if (_state[k] is not (Clean or Crowded) || a < 0)
             {
                 continue;
             }
-            for (int b = 0; b < Bins; b++)
+            ReadOnlySpan<float> ray = _samples.AsSpan(k * _stride, _length[k]);
+            double floor = Math.Floor(a);
+            int i0 = (int)floor - BinZero;
+            double f = a - floor, g = 1 - f;
+            int bFrom = Math.Max(binFrom, _start[k] - i0), bTo = Math.Min(binTo, ray.Length - 1 - i0);
+            for (int b = bFrom; b < bTo; b++)
             {
-                double s = a + b - BinZero;
-                int i = (int)Math.Floor(s);
-                if (i < 0 || i + 1 >= _length[k])
-                {
-                    continue;
-                }
-                double f = s - i;
-                _mean[b] += (_samples[(k * _stride) + i] * (1 - f)) + (_samples[(k * _stride) + i + 1] * f);
-                _count[b]++;
+                int i = i0 + b;
+                mean[b] += (ray[i] * g) + (ray[i + 1] * f);
+                count[b]++;
             }
         }
         for (int b = 0; b < Bins; b++)
         {
-            _mean[b] = _count[b] > 0 ? _mean[b] / _count[b] : double.NaN;
+            mean[b] = count[b] > 0 ? mean[b] / count[b] : double.NaN;
         }
     }
 
@@ -298,8 +457,8 @@ internal sealed class EdgeRefiner
         t = double.NaN;
         int offset = k * _stride;
         int anchor = _first[k];
-        int lo = Math.Max(0, anchor - (int)(2 / Step));
-        int hi = Math.Min(_length[k] - 1, anchor + (int)(2.5 / Step));
+        int lo = Math.Max(_start[k], anchor - CrossingInside);
+        int hi = Math.Min(_length[k] - 1, anchor + CrossingOutside);
         if (hi <= lo || _samples[offset + hi] >= level)
         {
             return false;
@@ -357,7 +516,7 @@ internal sealed class EdgeRefiner
             }
         }
         double irregular = double.NaN, six = double.NaN;
-        if (n >= Rays - 6)
+        if (n >= Rays - (Rays / 8))
         {
             double mean = total / n, sum2 = 0;
             for (int m = 2; m <= 6; m++)
@@ -400,7 +559,7 @@ internal sealed class EdgeRefiner
                 pairs++;
             }
         }
-        return (irregular, six, pairs >= 8 ? hi / lo : double.NaN);
+        return (irregular, six, pairs >= Rays / 6 ? hi / lo : double.NaN);
     }
 
     /// <summary>
@@ -448,12 +607,14 @@ internal sealed class EdgeRefiner
         double level = 0.5 * (p.Centre + top);
         double sum2 = 0;
         int n = 0;
-        for (int k = 0; k < Rays; k++)
+        // The even rays (half of them, evenly spaced) describe a disc well enough; the odd ones are not sampled inside.
+        for (int k = 0; k < Rays; k += 2)
         {
             if (double.IsNaN(_edge[k]))
             {
                 continue;
             }
+            EnsureInside(k);
             int offset = k * _stride;
             int end = (int)(_edge[k] / Step);
             for (int s = 0; s < end && s + 1 < _length[k]; s++)
@@ -467,7 +628,7 @@ internal sealed class EdgeRefiner
                 }
             }
         }
-        return n >= Rays / 2 ? Math.Sqrt(sum2 / n) : 0;
+        return n >= Rays / 4 ? Math.Sqrt(sum2 / n) : 0;
     }
 
     /// <summary>Median by selection (Hoare's quickselect, expected linear time; reorders <paramref name="values"/>).</summary>

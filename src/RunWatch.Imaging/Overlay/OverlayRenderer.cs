@@ -112,7 +112,7 @@ public static class OverlayRenderer
         image.SaveAsPng(path, new PngEncoder { CompressionLevel = PngCompressionLevel.BestSpeed });
     }
 
-    private static (double Lo, double Hi) Stretch(ushort[] pixels)
+    internal static (double Lo, double Hi) Stretch(ushort[] pixels)
     {
         var histogram = new long[65536];
         int step = Math.Max(1, pixels.Length / 500_000);

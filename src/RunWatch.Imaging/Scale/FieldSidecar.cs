@@ -120,7 +120,39 @@ public sealed record FieldSidecar
     /// <summary>Writes this sidecar beside <paramref name="imagePath"/>.</summary>
     public void WriteFor(string imagePath) => File.WriteAllText(PathFor(imagePath), JsonSerializer.Serialize(this, Json));
 
-    private void Validate(string path)
+    /// <summary>
+    /// Reads a sidecar from its text (for one given beside an upload rather than found in the drop folder).
+    /// </summary>
+    /// <param name="text">The sidecar's JSON, at most <see cref="MaxBytes"/> bytes as UTF-8.</param>
+    /// <param name="source">Name used in messages.</param>
+    /// <exception cref="FieldSidecarException">The text is not a valid sidecar.</exception>
+    public static FieldSidecar Parse(string text, string source)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        if (System.Text.Encoding.UTF8.GetByteCount(text) > MaxBytes)
+        {
+            throw new FieldSidecarException(source, $"is larger than {MaxBytes} bytes");
+        }
+        FieldSidecar? sidecar;
+        try
+        {
+            sidecar = JsonSerializer.Deserialize<FieldSidecar>(text, Json);
+        }
+        catch (JsonException ex)
+        {
+            throw new FieldSidecarException(source, "not valid JSON: " + ex.Message);
+        }
+        if (sidecar is null)
+        {
+            throw new FieldSidecarException(source, "empty");
+        }
+        sidecar.Validate(source);
+        return sidecar;
+    }
+
+    /// <summary>Checks every value against the bounds a sidecar file is held to.</summary>
+    /// <exception cref="FieldSidecarException">A value is out of bounds; the message names it.</exception>
+    public void Validate(string path)
     {
         if (Format != CurrentFormat)
         {

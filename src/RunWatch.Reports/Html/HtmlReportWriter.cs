@@ -157,7 +157,7 @@ public static partial class HtmlReportWriter
             {
                 h.Append("<p class=\"missing\">thumbnail is not a PNG image; left out</p>");
             }
-            h.Append("<figcaption>").Append(E(f.FieldName)).Append(" · ").Append(f.WireCount).Append(" wires");
+            h.Append("<figcaption>").Append(E(f.FieldName)).Append(" · ").Append(f.WireCount).Append(" wires").Append(E(DropletWording.FieldSuffix(f.Droplets)));
             if (f.Caption.Length > 0)
             {
                 h.Append("<br />").Append(E(f.Caption));
@@ -181,6 +181,10 @@ public static partial class HtmlReportWriter
             ("Density", Scientific(s.DensityPerCm2) + " cm⁻²"),
             ("Vertical yield", Percent(s.VerticalYield)),
         ]);
+        if (DropletWording.Wafer(report.Droplets) is { Length: > 0 } droplets)
+        {
+            h.Append("<p>").Append(E(droplets)).Append("</p>\n");
+        }
         Figure(h, histogram);
         h.Append("</section>\n");
     }

@@ -5,4 +5,5 @@ namespace RunWatch.Reports.Model;
 /// <param name="Png">PNG-encoded thumbnail with overlays; anything that is not a PNG is left out of the report with a note.</param>
 /// <param name="Caption">Caption text.</param>
 /// <param name="WireCount">Wires measured in this field.</param>
-public sealed record FieldThumbnail(string FieldName, ReadOnlyMemory<byte> Png, string Caption, int WireCount);
+/// <param name="Droplets">Wire and droplet radius of this field's wires carrying a droplet; null when not reported.</param>
+public sealed record FieldThumbnail(string FieldName, ReadOnlyMemory<byte> Png, string Caption, int WireCount, RunWatch.Core.Wafers.DropletFigures? Droplets = null);

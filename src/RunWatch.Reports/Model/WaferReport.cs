@@ -17,6 +17,7 @@ namespace RunWatch.Reports.Model;
 /// <param name="Comparison">Predicted against measured after SEM, or null.</param>
 /// <param name="Verdict">The QC verdict with its rules.</param>
 /// <param name="Diffusion">The diffusion radius model the wafer was judged with, or null when it was not applied.</param>
+/// <param name="Droplets">Wire and droplet radius of the wires carrying a droplet, every field pooled; null when not reported.</param>
 public sealed record WaferReport(
     ReportIdentity Identity,
     ThermalSummary Thermal,
@@ -28,7 +29,8 @@ public sealed record WaferReport(
     RadiusPrediction? Prediction,
     PredictedVsMeasured? Comparison,
     QcVerdict Verdict,
-    DiffusionModelFigures? Diffusion = null)
+    DiffusionModelFigures? Diffusion = null,
+    DropletFigures? Droplets = null)
 {
     /// <summary>Revision, reason, requester and what the report was made from; null for a report that is not a stored record.</summary>
     public ReportProvenance? Provenance { get; init; }

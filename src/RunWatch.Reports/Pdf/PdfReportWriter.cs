@@ -71,6 +71,10 @@ public static partial class PdfReportWriter
             Thermal(page, report.Thermal, charts.Thermal);
             Fields(page, report.Fields);
             Statistics(page, report.Statistics, charts.Histogram);
+            if (DropletWording.Wafer(report.Droplets) is { Length: > 0 } droplets)
+            {
+                page.Paragraph(droplets);
+            }
             ModelSection(page, report, charts.RadiusVersusArea);
             Prediction(page, report, charts.PredictedVersusMeasured);
             Wires(page, report);
@@ -173,7 +177,7 @@ public static partial class PdfReportWriter
             {
                 FieldThumbnail f = fields[i];
                 float x = PdfLayout.Margin + ((i - start) * (width + gap));
-                string caption = f.FieldName + " · " + f.WireCount + " wires";
+                string caption = f.FieldName + " · " + f.WireCount + " wires" + DropletWording.FieldCount(f.Droplets);
                 if (!ReportChartSet.IsPng(f.Png.Span) || !page.Image(f.Png.Span, width, caption, x, advance: false))
                 {
                     // Drawn as a note in place of the image so a bad thumbnail never stops the report.

@@ -52,6 +52,10 @@ internal sealed class DropFolderScanner
             {
                 continue; // sidecars travel with their image
             }
+            if (FieldFileNameCheck.IsUploadInProgress(relative))
+            {
+                continue; // the uploader takes it in itself once it is whole
+            }
             if (link)
             {
                 Refuse(relative, "a symbolic link; copy the file itself into the drop folder", refused);

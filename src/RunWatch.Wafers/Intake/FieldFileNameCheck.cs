@@ -7,6 +7,24 @@ namespace RunWatch.Wafers.Intake;
 /// </summary>
 internal static class FieldFileNameCheck
 {
+    /// <summary>Subfolder of the drop folder where uploads land.</summary>
+    public const string UploadFolder = "uploads";
+
+    /// <summary>Ending of the hidden file an upload is written to before it is moved into place under its name.</summary>
+    public const string UploadPartialSuffix = ".partial";
+
+    /// <summary>
+    /// Whether a drop-folder path is an upload still being written (<c>uploads/.&lt;id&gt;.partial</c>): the uploader
+    /// takes it in itself once whole, so the folder scan must neither take it in nor list it as refused.
+    /// </summary>
+    public static bool IsUploadInProgress(string relativePath)
+    {
+        ArgumentNullException.ThrowIfNull(relativePath);
+        string name = Path.GetFileName(relativePath);
+        string? folder = Path.GetDirectoryName(relativePath);
+        return folder == UploadFolder && name.StartsWith('.') && name.EndsWith(UploadPartialSuffix, StringComparison.Ordinal);
+    }
+
     /// <summary>Longest accepted file name, in characters.</summary>
     public const int MaxNameLength = 200;
 

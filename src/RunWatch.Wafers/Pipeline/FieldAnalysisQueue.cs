@@ -13,6 +13,7 @@ public sealed class FieldAnalysisQueue
     private long _done;
     private long _failed;
     private int _running;
+    private readonly System.Collections.Concurrent.ConcurrentDictionary<long, byte> _runningIds = new();
 
     public FieldAnalysisQueue(int capacity)
     {
@@ -48,10 +49,18 @@ public sealed class FieldAnalysisQueue
 
     internal ChannelReader<long> Reader => _channel.Reader;
 
-    internal void Started() => Interlocked.Increment(ref _running);
+    /// <summary>Whether this daemon is analysing the field now.</summary>
+    public bool IsRunning(long fieldId) => _runningIds.ContainsKey(fieldId);
 
-    internal void Finished(bool ok)
+    internal void Started(long fieldId)
     {
+        _runningIds[fieldId] = 0;
+        Interlocked.Increment(ref _running);
+    }
+
+    internal void Finished(long fieldId, bool ok)
+    {
+        _runningIds.TryRemove(fieldId, out _);
         Interlocked.Decrement(ref _running);
         Interlocked.Increment(ref ok ? ref _done : ref _failed);
     }

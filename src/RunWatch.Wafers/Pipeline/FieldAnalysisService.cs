@@ -3,6 +3,7 @@ using System.Text.Json;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
+using RunWatch.Core.Qc;
 using RunWatch.Core.Wafers;
 using RunWatch.Imaging.Analysis;
 using RunWatch.Imaging.Decoding;
@@ -22,7 +23,9 @@ public sealed class FieldAnalysisService(
     WaferReportService reports,
     IOptions<WaferPipelineOptions> options,
     TimeProvider time,
-    ILogger<FieldAnalysisService> logger) : BackgroundService
+    ILogger<FieldAnalysisService> logger,
+    IOptions<QcOptions>? qc = null,
+    QcSpecificationCatalog? specifications = null) : BackgroundService
 {
     // Who holds a field while it is analysed: daemons sharing one store (fleet mode) each claim a field before
     // analysing it, so a field is analysed once; a claim of a daemon that died runs out after the lease.
@@ -41,7 +44,7 @@ public sealed class FieldAnalysisService(
         }
         await foreach (long fieldId in queue.Reader.ReadAllAsync(stoppingToken).ConfigureAwait(false))
         {
-            queue.Started();
+            queue.Started(fieldId);
             bool ok = false;
             string? wafer = null;
             try
@@ -50,18 +53,39 @@ public sealed class FieldAnalysisService(
             }
             catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
             {
-                queue.Finished(false);
+                queue.Finished(fieldId, false);
                 throw;
             }
             catch (Exception ex) when (ex is IOException or InvalidDataException or JsonException or StoreUnavailableException or InvalidOperationException or ArgumentException)
             {
                 Log.FieldFailed(logger, fieldId, ex.Message);
             }
-            queue.Finished(ok);
+            queue.Finished(fieldId, ok);
             if (wafer is not null && await NothingWaitingAsync(wafer, stoppingToken).ConfigureAwait(false))
             {
                 await WriteReportAsync(wafer, stoppingToken).ConfigureAwait(false);
             }
+        }
+    }
+
+    /// <summary>
+    /// The droplet contact angle of the wafer's process, from its QC specification (the stored one where the store keeps
+    /// them, else configuration; recipe as the report resolves it): the analysis turns bare droplets into wire radii with it.
+    /// Null when the process has no specification or no angle.
+    /// </summary>
+    internal async Task<double?> ContactAngleAsync(string wafer, RunRecord? run, CancellationToken cancellationToken)
+    {
+        string recipe = run?.Recipe ?? (await wafers.GetWaferAsync(wafer, cancellationToken).ConfigureAwait(false))?.Process ?? options.Value.DefaultProcess;
+        try
+        {
+            QcSpecification? specification = specifications is not null
+                ? await specifications.SpecificationForAsync(recipe, cancellationToken).ConfigureAwait(false)
+                : qc?.Value.SpecificationFor(recipe);
+            return specification?.DropletContactAngleDeg;
+        }
+        catch (KeyNotFoundException)
+        {
+            return null;
         }
     }
 
@@ -84,6 +108,7 @@ public sealed class FieldAnalysisService(
         {
             PixelSizeNm = options.Value.DefaultPixelSizeNm,
             DiffusionLengthNm = run?.LEffNm,
+            DropletContactAngleDeg = await ContactAngleAsync(field.Wafer, run, cancellationToken).ConfigureAwait(false),
         };
         var clock = Stopwatch.StartNew();
         TimeSpan budget = options.Value.FieldAnalysisBudget;
@@ -115,7 +140,7 @@ public sealed class FieldAnalysisService(
                 Status = "done",
                 WireCount = analysis.Wires.Count,
                 DiffusionLengthNm = run?.LEffNm,
-                SettingsJson = JsonSerializer.Serialize(new { settings.PixelSizeNm, settings.DiffusionLengthNm, settings.ManualThreshold, settings.MinWireAreaPixels }, PipelineJson.Options),
+                SettingsJson = JsonSerializer.Serialize(new { settings.PixelSizeNm, settings.DiffusionLengthNm, settings.ManualThreshold, settings.MinWireAreaPixels, settings.DropletContactAngleDeg }, PipelineJson.Options),
                 ResultsJson = FieldResultJson.Write(result),
             }, cancellationToken).ConfigureAwait(false);
             await wafers.UpdateFieldAsync(field with

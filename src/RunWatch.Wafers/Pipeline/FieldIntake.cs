@@ -164,13 +164,11 @@ public sealed class FieldIntake
     }
 
     /// <summary>Re-analyses every field of a wafer, on request (new settings or model). Returns how many were queued.</summary>
-    public Task<int> ReanalyseWaferAsync(string wafer, string actor, CancellationToken cancellationToken) => ReanalyseWaferAsync(wafer, actor, null, cancellationToken);
+    public Task<int> ReanalyseWaferAsync(string wafer, string actor, CancellationToken cancellationToken) =>
+        ReanalyseWaferAsync(wafer, actor, reason: null, cancellationToken);
 
-    /// <summary>
-    /// Re-analyses every field of a wafer, on request; the report revision that follows records <paramref name="actor"/>
-    /// and the reason ("re-analysis requested", with <paramref name="note"/> when given). Returns how many were queued.
-    /// </summary>
-    public async Task<int> ReanalyseWaferAsync(string wafer, string actor, string? note, CancellationToken cancellationToken)
+    /// <summary>Re-analyses every analysed or failed field of a wafer, audited with who asked and why. Returns how many were queued.</summary>
+    public async Task<int> ReanalyseWaferAsync(string wafer, string actor, string? reason, CancellationToken cancellationToken)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(actor);
         int queued = 0;
@@ -182,8 +180,8 @@ public sealed class FieldIntake
                 if (!requested)
                 {
                     // Stored before the fields are queued, so the revision written after them answers it.
-                    string reason = "re-analysis requested" + (string.IsNullOrWhiteSpace(note) ? "" : ": " + note.Trim());
-                    await _revisions.AddReportRequestAsync(new ReportRequestRecord(0, wafer, _time.GetUtcNow(), actor, reason), cancellationToken).ConfigureAwait(false);
+                    string why = "re-analysis requested" + (string.IsNullOrWhiteSpace(reason) ? "" : ": " + reason.Trim());
+                    await _revisions.AddReportRequestAsync(new ReportRequestRecord(0, wafer, _time.GetUtcNow(), actor, why), cancellationToken).ConfigureAwait(false);
                     requested = true;
                 }
                 await _wafers.UpdateFieldAsync(field with { Status = FieldStatus.Queued, Problem = null }, cancellationToken).ConfigureAwait(false);
@@ -191,7 +189,8 @@ public sealed class FieldIntake
                 queued++;
             }
         }
-        await _store.AppendAuditAsync(new AuditEntry(_time.GetUtcNow(), actor, "reanalyse-wafer", wafer, null), cancellationToken).ConfigureAwait(false);
+        await _store.AppendAuditAsync(new AuditEntry(_time.GetUtcNow(), actor, "reanalyse-wafer", wafer,
+            string.IsNullOrWhiteSpace(reason) ? null : AuditDetail.Json(reason)), cancellationToken).ConfigureAwait(false);
         return queued;
     }
 
@@ -202,6 +201,27 @@ public sealed class FieldIntake
         {
             await _revisions.AddReportRequestAsync(new ReportRequestRecord(0, wafer, _time.GetUtcNow(), requester, reason), cancellationToken).ConfigureAwait(false);
         }
+    }
+
+    /// <summary>Re-analyses one field on request, audited with who asked and why.</summary>
+    /// <exception cref="KeyNotFoundException">No such field.</exception>
+    /// <exception cref="InvalidOperationException">The field is not analysed or failed (it waits for a wafer, or is queued already).</exception>
+    public async Task<FieldRecord> ReanalyseFieldAsync(long fieldId, string actor, string reason, CancellationToken cancellationToken)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(actor);
+        ArgumentException.ThrowIfNullOrWhiteSpace(reason);
+        FieldRecord field = await _wafers.GetFieldAsync(fieldId, cancellationToken).ConfigureAwait(false)
+            ?? throw new KeyNotFoundException("no field with id " + fieldId);
+        if (field.Status is not (FieldStatus.Analysed or FieldStatus.Failed))
+        {
+            throw new InvalidOperationException(field.Status == FieldStatus.Queued
+                ? $"field {fieldId} is queued for analysis already"
+                : $"field {fieldId} has no wafer yet ({field.Problem ?? "unassigned"}); assign it first");
+        }
+        FieldRecord updated = await _wafers.UpdateFieldAsync(field with { Status = FieldStatus.Queued, Problem = null }, cancellationToken).ConfigureAwait(false);
+        await _store.AppendAuditAsync(new AuditEntry(_time.GetUtcNow(), actor, "reanalyse-field", $"field {fieldId} of wafer {field.Wafer}", AuditDetail.Json(reason)), cancellationToken).ConfigureAwait(false);
+        await _queue.EnqueueAsync(updated.Id, cancellationToken).ConfigureAwait(false);
+        return updated;
     }
 
     private static async Task<string> Sha256Async(string path, CancellationToken cancellationToken)

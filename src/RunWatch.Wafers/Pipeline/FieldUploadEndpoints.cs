@@ -1,9 +1,6 @@
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Http;
 using Microsoft.AspNetCore.Routing;
-using Microsoft.Extensions.Options;
-using RunWatch.Wafers.Intake;
-using RunWatch.Storage;
 
 namespace RunWatch.Wafers.Pipeline;
 
@@ -43,71 +40,23 @@ public static class FieldUploadEndpoints
             return queued == 0 ? Results.NotFound(new { wafer, queued }) : Results.Accepted(value: new { wafer, queued });
         });
 
-    internal static async Task<IResult> UploadAsync(HttpRequest request, string? name, FieldIntake intake, FieldIntakeService watcher,
-        IOptions<IntakeOptions> options, CancellationToken cancellationToken)
+    internal static async Task<IResult> UploadAsync(HttpRequest request, string? name, FieldUploader uploader, CancellationToken cancellationToken)
     {
-        if (string.IsNullOrEmpty(name) || name.Contains('/', StringComparison.Ordinal) || name.Contains('\\', StringComparison.Ordinal))
+        if (request.ContentLength is { } length && length > uploader.MaxBytes)
         {
-            return Results.Problem("give the image's file name as ?name=..., without folders", statusCode: StatusCodes.Status400BadRequest);
+            return Results.Problem($"upload larger than {uploader.MaxBytes} bytes", statusCode: StatusCodes.Status413PayloadTooLarge);
         }
-        if (FieldFileNameCheck.Refusal(name) is { } refusal)
+        FieldUploadOutcome outcome = await uploader.UploadAsync(name, request.Body, sidecar: null, checkImage: false, cancellationToken).ConfigureAwait(false);
+        if (outcome.Field is not { } field)
         {
-            return Results.Problem("file name refused: " + refusal, statusCode: StatusCodes.Status400BadRequest);
-        }
-        long limit = options.Value.MaxUploadBytes;
-        if (request.ContentLength is { } length && length > limit)
-        {
-            return Results.Problem($"upload larger than {limit} bytes", statusCode: StatusCodes.Status413PayloadTooLarge);
-        }
-        string folder = Path.Combine(watcher.DropFolder, "uploads");
-        Directory.CreateDirectory(folder);
-        string? path = FieldFileNameCheck.ResolveInside(folder, name);
-        if (path is null)
-        {
-            return Results.Problem("file name refused: path leaves the upload folder", statusCode: StatusCodes.Status400BadRequest);
-        }
-        string partial = Path.Combine(folder, "." + Guid.NewGuid().ToString("N") + ".partial");
-        long written = 0;
-        try
-        {
-            await using (var output = new FileStream(partial, FileMode.CreateNew, FileAccess.Write, FileShare.None, 1 << 16, useAsync: true))
+            string problem = outcome.Problem ?? "refused";
+            // The API's earlier wording for a missing name, kept for lab scripts that match on it.
+            if (problem.StartsWith("give the image's file name", StringComparison.Ordinal))
             {
-                byte[] buffer = new byte[1 << 16];
-                int read;
-                while ((read = await request.Body.ReadAsync(buffer, cancellationToken).ConfigureAwait(false)) > 0)
-                {
-                    written += read;
-                    if (written > limit)
-                    {
-                        return Results.Problem($"upload larger than {limit} bytes", statusCode: StatusCodes.Status413PayloadTooLarge);
-                    }
-                    await output.WriteAsync(buffer.AsMemory(0, read), cancellationToken).ConfigureAwait(false);
-                }
+                problem = "give the image's file name as ?name=..., without folders";
             }
-            if (written == 0)
-            {
-                return Results.Problem("empty upload", statusCode: StatusCodes.Status400BadRequest);
-            }
-            try
-            {
-                File.Move(partial, path, overwrite: false);
-            }
-            catch (IOException)
-            {
-                return Results.Problem($"a file named {name} was uploaded before; rename the new one", statusCode: StatusCodes.Status409Conflict);
-            }
-            var info = new FileInfo(path);
-            var (field, added) = await intake.TakeInAsync(
-                new ArrivedField(path, Path.GetRelativePath(watcher.DropFolder, path), info.Length, info.LastWriteTimeUtc), cancellationToken).ConfigureAwait(false);
-            return Results.Json(new { field.Id, field.Wafer, Status = field.Status.ToString(), field.Problem, Added = added },
-                statusCode: added ? StatusCodes.Status201Created : StatusCodes.Status200OK);
+            return Results.Problem(problem, statusCode: outcome.StatusCode);
         }
-        finally
-        {
-            if (File.Exists(partial))
-            {
-                File.Delete(partial);
-            }
-        }
+        return Results.Json(new { field.Id, field.Wafer, Status = field.Status.ToString(), field.Problem, Added = outcome.Added }, statusCode: outcome.StatusCode);
     }
 }

@@ -52,6 +52,7 @@ public static class WaferPipelineServiceCollectionExtensions
         {
             services.TryAddSingleton<FieldIntakeService>();
             services.TryAddSingleton<FieldAnalysisService>();
+            services.TryAddSingleton<FieldUploader>();
             services.AddHostedService(sp => sp.GetRequiredService<FieldIntakeService>());
             services.AddHostedService(sp => sp.GetRequiredService<FieldAnalysisService>());
         }

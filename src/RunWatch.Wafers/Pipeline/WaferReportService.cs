@@ -90,7 +90,7 @@ public sealed class WaferReportService
             if (File.Exists(overlay))
             {
                 thumbnails.Add(new FieldThumbnail(result.FieldName, await File.ReadAllBytesAsync(overlay, cancellationToken).ConfigureAwait(false),
-                    Caption(result), result.Wires.Count));
+                    Caption(result), result.Wires.Count, DropletFigures.From(result.Wires)));
             }
         }
         if (fields.Count == 0)
@@ -213,7 +213,8 @@ public sealed class WaferReportService
             evaluation.Prediction,
             evaluation.Comparison,
             verdictInForce,
-            diffusionFigures);
+            diffusionFigures,
+            DropletFigures.From(fields.SelectMany(f => f.Wires)));
 
         string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce,
             evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null,

@@ -5,7 +5,7 @@ using RunWatch.Web.Data;
 namespace RunWatch.Web.Api;
 
 /// <summary>
-/// The runs and alerts tables as CSV (RFC 4180 through CsvHelper; text cells that a spreadsheet would read as a
+/// The runs, wafers and alerts tables as CSV (RFC 4180 through CsvHelper; text cells that a spreadsheet would read as a
 /// formula are escaped, OWASP "CSV Injection", COMMON PRACTICE). Times are ISO 8601 UTC, numbers invariant.
 /// </summary>
 public static class CsvExport
@@ -50,6 +50,23 @@ public static class CsvExport
                 csv.WriteField(a.AcknowledgedBy ?? "");
                 csv.WriteField(a.Comment ?? "");
             });
+    }
+
+    /// <summary>One row per wafer: the wafer list's columns (mean radius in nm, blank when not measured).</summary>
+    public static string Wafers(IReadOnlyList<WaferListRow> wafers)
+    {
+        ArgumentNullException.ThrowIfNull(wafers);
+        return Write(["wafer", "run", "chamber", "process", "verdict", "date_utc", "mean_radius_nm", "fields"], wafers, (csv, w) =>
+        {
+            csv.WriteField(w.WaferId);
+            csv.WriteField(w.RunId);
+            csv.WriteField(w.Chamber);
+            csv.WriteField(w.Process);
+            csv.WriteField(w.Verdict ?? "");
+            csv.WriteField(Utc(w.Date));
+            csv.WriteField(Number(w.MeanRadiusNm));
+            csv.WriteField(w.Fields.ToString(CultureInfo.InvariantCulture));
+        });
     }
 
     private static string Write<T>(string[] header, IReadOnlyList<T> rows, Action<CsvWriter, T> row)

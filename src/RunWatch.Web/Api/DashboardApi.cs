@@ -55,6 +55,7 @@ public static class DashboardApi
             Results.Text(CsvExport.Runs(await q.GetRunsAsync(ct)), "text/csv; charset=utf-8"));
         api.MapGet("/export/alerts.csv", async (IDashboardQueries q, CancellationToken ct) =>
             Results.Text(CsvExport.Alerts(await q.GetAlertsAsync(ct)), "text/csv; charset=utf-8"));
+        api.MapLabRecordsApi();
 
         var act = api.MapGroup("").RequireAuthorization(DashboardRoles.CanActPolicy);
         act.MapPost("/alerts/{alertId}/acknowledge", (string alertId, CommentRequest body, ClaimsPrincipal user, IDashboardCommands c, CancellationToken ct) =>

@@ -140,6 +140,7 @@ public static partial class DashboardHostingExtensions
         services.TryAddSingleton<Data.IDashboardQueries>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
         services.TryAddSingleton<Data.IDashboardCommands>(sp => sp.GetRequiredService<Data.Store.StoreDashboardData>());
         services.TryAddSingleton<Data.IPlannerEngine, Data.Store.ProcessModelPlanner>();
+        services.TryAddSingleton<Data.ILabRecordQueries, Data.Store.StoreLabRecords>();
         services.AddHostedService<StoredSettingsStartupService>();
         return services;
     }
@@ -166,6 +167,7 @@ public static partial class DashboardHostingExtensions
         app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
         MapAccount(app);
         app.MapDashboardApi();
+        app.MapFieldViewerApi();
         app.MapOpenApi().RequireAuthorization();
         return app;
     }

@@ -7,14 +7,20 @@ namespace RunWatch.Web.Safety;
 
 /// <summary>
 /// Evaluates the reminder rules on a chamber's status and records in the audit log each time a reminder is shown
-/// to a user: once per user for each stretch of time in which the reminder's condition holds.
+/// to a user: once per user for each stretch of time in which the reminder's condition holds. A stretch ends only
+/// after the condition has stayed clear for <see cref="RearmAfter"/>, so a reading that hovers at a threshold (noise,
+/// a flapping flag) does not log one "reminder shown" per crossing and flood the audit log.
 /// </summary>
 public sealed class ReminderMonitor(ReminderRuleSet rules, IDashboardCommands commands, DashboardClock clock, ReminderBindings bindings,
     IOptions<DashboardOptions> options)
 {
     private readonly ConcurrentDictionary<(string Chamber, string Rule), long> _activation = new();
+    private readonly ConcurrentDictionary<(string Chamber, string Rule), DateTimeOffset> _clearSince = new();
     private readonly ConcurrentDictionary<(string Chamber, string Rule, string User, long Activation), byte> _logged = new();
     private long _nextActivation;
+
+    /// <summary>How long a reminder's condition must stay clear before its next showing is logged as a new one.</summary>
+    public static readonly TimeSpan RearmAfter = TimeSpan.FromMinutes(10);
 
     /// <summary>The reminders that hold now for one chamber.</summary>
     public IReadOnlyList<ActiveReminder> Evaluate(ChamberStatus chamber) => Assess(chamber).Active;
@@ -29,13 +35,20 @@ public sealed class ReminderMonitor(ReminderRuleSet rules, IDashboardCommands co
         foreach (var rule in rules.Rules)
         {
             bool holds = active.Any(a => a.Rule.Id == rule.Id);
+            var key = (chamber.Chamber, rule.Id);
             if (holds)
             {
-                _activation.GetOrAdd((chamber.Chamber, rule.Id), _ => Interlocked.Increment(ref _nextActivation));
+                _clearSince.TryRemove(key, out _);
+                _activation.GetOrAdd(key, _ => Interlocked.Increment(ref _nextActivation));
             }
-            else
+            else if (_activation.ContainsKey(key))
             {
-                _activation.TryRemove((chamber.Chamber, rule.Id), out _);
+                DateTimeOffset since = _clearSince.GetOrAdd(key, clock.Now);
+                if (clock.Now - since >= RearmAfter)
+                {
+                    _activation.TryRemove(key, out _);
+                    _clearSince.TryRemove(key, out _);
+                }
             }
         }
         return assessment;

@@ -26,6 +26,10 @@ internal static class RunWatchComposition
         builder.Services.TryAddSingleton<RunWatch.Web.Data.Store.StoreWaferData>();
         builder.Services.TryAddSingleton<RunWatch.Web.Data.IFieldAssigner, PipelineFieldAssigner>();
         builder.Services.TryAddSingleton<RunWatch.Web.Data.IModelRefitter, PipelineModelRefitter>();
+        // Fields screen (upload, queue, re-analysis) and the full-field viewer.
+        builder.Services.TryAddSingleton<RunWatch.Web.Data.Fields.IFieldPipeline, PipelineFieldUploads>();
+        builder.Services.TryAddSingleton<RunWatch.Web.Data.Fields.IFieldImageRenderer, PipelineFieldImageRenderer>();
+        builder.Services.TryAddSingleton<RunWatch.Web.Data.Fields.IFieldDetails, RunWatch.Web.Data.Store.StoreFieldDetails>();
         builder.Services.AddRunWatchDashboardStoreData();
         builder.Services.TryAddSingleton<DashboardLiveBridge>();
         builder.Services.AddSingleton<IIngestCommitListener>(sp => sp.GetRequiredService<DashboardLiveBridge>());

@@ -28,6 +28,9 @@ public sealed class QcSpecificationTests
         { s => s.MaxExcursionCount = -1, "MaxExcursionCount" },
         { s => s.WarnThermalCoverage = 1.5, "WarnThermalCoverage" },
         { s => s.MinWireCount = 0, "MinWireCount" },
+        { s => s.DropletContactAngleDeg = 90, "DropletContactAngleDeg" },
+        { s => s.DropletContactAngleDeg = 180, "DropletContactAngleDeg" },
+        { s => s.DropletContactAngleDeg = double.NaN, "DropletContactAngleDeg" },
         { s => s.MissingValueOutcome = (QcOutcome)7, "MissingValueOutcome" },
     };
 

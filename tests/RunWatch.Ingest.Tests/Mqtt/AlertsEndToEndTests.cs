@@ -1,3 +1,4 @@
+using Microsoft.Extensions.DependencyInjection;
 using System.Collections.Concurrent;
 using System.Globalization;
 using System.Text;
@@ -52,6 +53,16 @@ public sealed class AlertsEndToEndTests
             TimeSpan.FromSeconds(10), "alert linked to its run");
         Assert.Equal(1, daemon.Scalar("SELECT COUNT(*) FROM runs WHERE name = 'R-e2e' AND end_reason = 'EndEvent' AND excursions_json LIKE '%Alarm%'"));
         Assert.Equal(2, daemon.Scalar("SELECT COUNT(*) FROM events"));
+
+        // One audit entry per acknowledgement: acknowledging the same alert again changes nothing and logs nothing.
+        long alertId = daemon.Scalar("SELECT MIN(id) FROM alerts WHERE kind = 'deviation-alarm'");
+        var commands = daemon.Services.GetRequiredService<RunWatch.Storage.IAlertCommands>();
+        bool first = await commands.AcknowledgeAsync(alertId, "ada-engineer", "seen, furnace door closed", CancellationToken.None);
+        bool second = await commands.AcknowledgeAsync(alertId, "ada-engineer", "seen again", CancellationToken.None);
+        Assert.True(first);
+        Assert.False(second);
+        Assert.Equal(1, daemon.Scalar($"SELECT COUNT(*) FROM audit_entries WHERE action = 'alert-acknowledged' AND subject = '{alertId}'"));
+        Assert.Equal(1, daemon.Scalar("SELECT COUNT(*) FROM audit_entries WHERE action LIKE '%acknowledg%'"));
     }
 
     private static byte[] Json(string text) => Encoding.UTF8.GetBytes(text);

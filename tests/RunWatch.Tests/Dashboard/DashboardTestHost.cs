@@ -57,6 +57,7 @@ internal sealed class DashboardTestHost : IAsyncDisposable
         }
         builder.Services.AddSingleton<IDashboardQueries>(data);
         builder.Services.AddSingleton<IDashboardCommands>(data);
+        builder.Services.AddSingleton<ILabRecordQueries>(new InMemoryLabRecords());
         builder.Services.AddSingleton<IPlannerEngine>(new RunWatch.Web.Data.Store.ProcessModelPlanner(Microsoft.Extensions.Options.Options.Create(new RunWatch.Web.DashboardOptions())));
         var app = builder.Build();
         var users = app.Services.GetRequiredService<UserDirectory>();

@@ -44,7 +44,15 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
             using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, stem + ".json")));
             string verdict = summary.RootElement.GetProperty("verdict").GetProperty("outcome").GetString()!;
             Assert.Contains(verdict, new[] { "Pass", "Warn", "Fail" });
-            Assert.Contains($"wafer {wafer}: verdict {verdict.ToUpperInvariant()}", output, StringComparison.Ordinal);
+            // The demo prints each wafer's first verdict. A browser test of the same demo may upload a field to a demo
+            // wafer (DemoFieldScreensBrowserTests), which rightly rewrites its report; then only the printed line is checked.
+            bool onlyDemoFields = File.ReadLines(Path.Combine(folder, wafer + "-wires.csv")).Skip(1)
+                .All(line => line.Contains("_field0", StringComparison.Ordinal));
+            Assert.Matches($"wafer {wafer}: verdict (PASS|WARN|FAIL)", output);
+            if (onlyDemoFields)
+            {
+                Assert.Contains($"wafer {wafer}: verdict {verdict.ToUpperInvariant()}", output, StringComparison.Ordinal);
+            }
 
             string text = PopplerText.Text(pdf);
             Assert.Contains(wafer, text, StringComparison.Ordinal);

@@ -51,6 +51,25 @@ public sealed class DropFolderScannerTests : IDisposable
     }
 
     [Fact]
+    public void Scan_UploadBeingWritten_NeitherArrivesNorRefused()
+    {
+        // The uploader's hidden partial file in uploads/ is its own business; a hidden file anywhere else is still refused.
+        Directory.CreateDirectory(Path.Combine(_root, "uploads"));
+        File.WriteAllBytes(Path.Combine(_root, "uploads", ".0123456789abcdef0123456789abcdef.partial"), [1, 2, 3]);
+        File.WriteAllBytes(Path.Combine(_root, ".0123456789abcdef0123456789abcdef.partial"), [1, 2, 3]);
+        var scanner = new DropFolderScanner(_root, TimeSpan.FromSeconds(1));
+        var arrived = new List<ArrivedField>();
+        var refused = new List<RefusedFile>();
+
+        scanner.Scan(T0, arrived, refused);
+        scanner.Scan(T0.AddSeconds(5), arrived, refused);
+
+        Assert.Empty(arrived);
+        var only = Assert.Single(refused);
+        Assert.Equal((".0123456789abcdef0123456789abcdef.partial", "hidden file"), (only.RelativePath, only.Reason));
+    }
+
+    [Fact]
     public void Scan_MissingFolder_FindsNothing()
     {
         var scanner = new DropFolderScanner(Path.Combine(_root, "absent"), TimeSpan.FromSeconds(1));

@@ -53,4 +53,23 @@ public sealed class CsvExportTests
         Assert.False(rows[1][10].StartsWith('='));
         Assert.Contains("HYPERLINK", rows[1][10], StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Wafers_Rows_ReadBackWithFormulaEscaped()
+    {
+        WaferListRow[] wafers =
+        [
+            new("W-1", "R-1", "north-1", "nw-inv", "PASS", DashboardTestContext.Now, 30.25, 3),
+            new("=cmd|' /C calc'!A0", "", "", "nw, thin", null, DashboardTestContext.Now.AddDays(-1), double.NaN, 0),
+        ];
+
+        var rows = Parse(CsvExport.Wafers(wafers));
+
+        Assert.Equal(["wafer", "run", "chamber", "process", "verdict", "date_utc", "mean_radius_nm", "fields"], rows[0]);
+        Assert.Equal(["W-1", "R-1", "north-1", "nw-inv", "PASS", "2026-03-04T10:00:00.000Z", "30.25", "3"], rows[1]);
+        Assert.Equal("nw, thin", rows[2][3]);
+        Assert.Equal("", rows[2][6]);
+        Assert.False(rows[2][0].StartsWith('='));
+        Assert.Contains("calc", rows[2][0], StringComparison.Ordinal);
+    }
 }

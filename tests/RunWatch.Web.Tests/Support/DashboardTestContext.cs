@@ -34,6 +34,7 @@ internal sealed class DashboardTestContext : BunitContext
         Services.AddSingleton<TimeProvider>(Time);
         Services.AddSingleton<IDashboardQueries>(Data);
         Services.AddSingleton<IDashboardCommands>(Data);
+        Services.AddSingleton<ILabRecordQueries>(Records);
         Services.AddSingleton<IPlannerEngine>(new RunWatch.Web.Data.Store.ProcessModelPlanner(Microsoft.Extensions.Options.Options.Create(new RunWatch.Web.DashboardOptions())));
         Services.AddSingleton(Hub);
         Services.AddSingleton<ITelemetryNotifier>(Hub);
@@ -59,6 +60,8 @@ internal sealed class DashboardTestContext : BunitContext
     public FakeTimeProvider Time { get; }
 
     public InMemoryDashboardData Data { get; }
+
+    public InMemoryLabRecords Records { get; } = new();
 
     public LiveUpdateHub Hub { get; }
 }

@@ -189,6 +189,7 @@ internal static class QcSpecRows
         MinThermalCoverage = s.MinThermalCoverage,
         WarnThermalCoverage = s.WarnThermalCoverage,
         MinWireCount = s.MinWireCount,
+        DropletContactAngleDeg = s.DropletContactAngleDeg,
         MissingValueOutcome = s.MissingValueOutcome,
     };
 }

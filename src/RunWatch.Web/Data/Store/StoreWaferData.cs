@@ -21,12 +21,14 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
         var fields = new List<FieldView>();
         IReadOnlyList<FieldRecord> fieldRecords = await wafers.GetFieldsOfWaferAsync(waferId, cancellationToken).ConfigureAwait(false);
         var analyses = new List<AnalysisRecord>();
+        var names = new Dictionary<long, string>();
         foreach (FieldRecord f in fieldRecords)
         {
             AnalysisRecord? a = await wafers.GetLatestAnalysisAsync(f.Id, cancellationToken).ConfigureAwait(false);
             if (a is not null)
             {
                 analyses.Add(a);
+                names[a.FieldId] = f.RelativePath;
             }
             fields.Add(new FieldView(f.Id.ToString(CultureInfo.InvariantCulture), f.RelativePath, f.ImportedAt, f.NmPerPx ?? double.NaN, a?.WireCount ?? 0));
         }
@@ -51,7 +53,40 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
             };
         }
         return new WaferDetail(waferId, run?.Name ?? "", fields, statistics, wires, verdict, [.. reports.Select(r => r.Format).OrderBy(f => f, StringComparer.Ordinal)],
-            diffusion);
+            diffusion, Droplets(names, analyses));
+    }
+
+    /// <summary>
+    /// Wire and droplet radius from each field's stored result (read through Storage's <see cref="FieldResultJson"/>);
+    /// null when no wire of the wafer carries a droplet. A result that cannot be read is left out, not fatal.
+    /// </summary>
+    private static WaferDroplets? Droplets(Dictionary<long, string> names, List<AnalysisRecord> analyses)
+    {
+        var perField = new List<FieldDroplets>();
+        var pooled = new List<RunWatch.Core.Wafers.FieldWire>();
+        foreach (AnalysisRecord a in analyses)
+        {
+            if (a.ResultsJson is not { Length: > 0 } json)
+            {
+                continue;
+            }
+            RunWatch.Core.Wafers.FieldResult result;
+            try
+            {
+                result = FieldResultJson.Read(json);
+            }
+            catch (Exception ex) when (ex is System.Text.Json.JsonException or InvalidDataException)
+            {
+                continue;
+            }
+            pooled.AddRange(result.Wires);
+            var figures = RunWatch.Core.Wafers.DropletFigures.From(result.Wires);
+            if (figures.WithDroplet > 0)
+            {
+                perField.Add(new FieldDroplets(names.GetValueOrDefault(a.FieldId, result.FieldName), figures));
+            }
+        }
+        return perField.Count > 0 ? new WaferDroplets(RunWatch.Core.Wafers.DropletFigures.From(pooled), perField) : null;
     }
 
     public async Task<ReportFile?> GetReportAsync(string waferId, string format, CancellationToken cancellationToken)

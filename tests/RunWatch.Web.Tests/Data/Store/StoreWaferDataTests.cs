@@ -1,4 +1,5 @@
 using Microsoft.Extensions.Options;
+using RunWatch.Core.Wafers;
 using RunWatch.Storage;
 using RunWatch.Storage.Sqlite;
 using RunWatch.Web.Data;
@@ -87,6 +88,34 @@ public sealed class StoreWaferDataTests : IAsyncLifetime
 
         Assert.NotNull(image);
         Assert.Equal(png, image!.Content);
+    }
+
+    [Fact]
+    public async Task GetWaferAsync_StoredResultsWithDroplets_ShowsWireAndDropletRadiusPerFieldAndPooled()
+    {
+        // Invented results as the pipeline stores them (Storage's FieldResultJson): field 1 has two droplet-bearing
+        // wires, field 2 one bare droplet without a wire radius (no contact angle) and one wire without a droplet.
+        FieldWire[] first = [new(1, 0, 0, 30, true, true, null, 21), new(2, 0, 0, 32, true, true, null, 23), new(3, 0, 0, 31, true, true, null)];
+        FieldWire[] second = [new(1, 0, 0, double.NaN, true, true, null, 44), new(2, 0, 0, 29, true, true, null)];
+        int n = 0;
+        foreach (FieldWire[] wires in new[] { first, second })
+        {
+            n++;
+            var (field, _) = await _store.AddFieldAsync(new FieldRecord { Wafer = "W-1", FilePath = $"/drop/d{n}.png", RelativePath = $"d{n}.png", Sha256 = $"d{n}", ImportedAt = T0, NmPerPx = 4 }, CancellationToken.None);
+            var result = new FieldResult { FieldName = $"d{n}.png", PixelSizeNm = 4, WidthNm = 4000, AnalysedHeightNm = 3000, Threshold = "1 (otsu)", AnalysedAreaCm2 = 1.2e-7, Wires = wires };
+            await _store.SaveAnalysisAsync(new AnalysisRecord { FieldId = field.Id, StartedAt = T0, Status = "done", WireCount = wires.Length, ResultsJson = FieldResultJson.Write(result) }, CancellationToken.None);
+        }
+
+        WaferDetail? wafer = await _data.GetWaferAsync("W-1", CancellationToken.None);
+
+        WaferDroplets droplets = wafer!.Droplets!;
+        Assert.Equal(["d1.png", "d2.png"], droplets.Fields.Select(f => f.FileName));
+        Assert.Equal(31, droplets.Fields[0].Figures.MeanWireRadiusNm, 12);
+        Assert.Equal(22, droplets.Fields[0].Figures.MeanDropletRadiusNm, 12);
+        Assert.Equal(0, droplets.Fields[1].Figures.WithBoth);
+        Assert.Equal(3, droplets.Wafer.WithDroplet);
+        Assert.Equal(2, droplets.Wafer.WithBoth);
+        Assert.Equal(44, droplets.Wafer.MeanDropletOnlyRadiusNm, 12);
     }
 
     [Fact]
