@@ -17,12 +17,16 @@ public static class WaferReportWriter
 {
     /// <summary>Renders the charts once and writes every file.</summary>
     /// <exception cref="IOException">The folder cannot be written.</exception>
-    public static ReportFiles WriteAll(WaferReport report, string directory)
+    public static ReportFiles WriteAll(WaferReport report, string directory) => WriteAll(report, directory, SafeFileName(report?.Identity.WaferId ?? ""));
+
+    /// <summary>Renders the charts once and writes every file, named <paramref name="name"/> (already a safe file name) plus the format's ending.</summary>
+    /// <exception cref="IOException">The folder cannot be written.</exception>
+    public static ReportFiles WriteAll(WaferReport report, string directory, string name)
     {
         ArgumentNullException.ThrowIfNull(report);
         ArgumentException.ThrowIfNullOrWhiteSpace(directory);
+        ArgumentException.ThrowIfNullOrWhiteSpace(name);
         Directory.CreateDirectory(directory);
-        string name = SafeFileName(report.Identity.WaferId);
         ReportChartSet charts = ReportChartSet.Render(report);
         var files = new ReportFiles(
             Path.Combine(directory, name + ".html"),

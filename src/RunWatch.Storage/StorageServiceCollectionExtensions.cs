@@ -40,6 +40,7 @@ public static class StorageServiceCollectionExtensions
             services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
+            services.TryAddSingleton<IReportRevisionStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<INoteStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
             services.TryAddSingleton<IFieldListStore>(sp => sp.GetRequiredService<PostgresRunWatchStore>());
         }
@@ -50,6 +51,7 @@ public static class StorageServiceCollectionExtensions
             services.TryAddSingleton<IWaferStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<ISettingsStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<IReminderBindingStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
+            services.TryAddSingleton<IReportRevisionStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<INoteStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
             services.TryAddSingleton<IFieldListStore>(sp => sp.GetRequiredService<SqliteRunWatchStore>());
         }

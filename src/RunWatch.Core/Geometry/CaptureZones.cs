@@ -14,7 +14,8 @@ public static class CaptureZones
     /// Thread-safe; runs in parallel over points when the input is large.
     /// </summary>
     /// <exception cref="ArgumentException">A point is outside the field or non-finite, two points coincide, or an option is out of range.</exception>
-    public static CaptureZoneResult Compute(ReadOnlySpan<Point2D> points, CaptureField field, CaptureZoneOptions? options = null)
+    /// <exception cref="OperationCanceledException"><paramref name="cancellationToken"/> was cancelled (checked once per chunk of points).</exception>
+    public static CaptureZoneResult Compute(ReadOnlySpan<Point2D> points, CaptureField field, CaptureZoneOptions? options = null, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(field);
         options ??= new CaptureZoneOptions();
@@ -36,6 +37,7 @@ public static class CaptureZones
 
         void RunChunk(int chunk, CaptureZoneWorker worker)
         {
+            cancellationToken.ThrowIfCancellationRequested();
             int start = chunk * PointsPerChunk, end = Math.Min(n, start + PointsPerChunk);
             List<Point2D>? buffer = outlines ? new List<Point2D>((end - start) * 8) : null;
             for (int slot = start; slot < end; slot++)
@@ -71,7 +73,7 @@ public static class CaptureZones
                 Parallel.For(
                     0,
                     chunks,
-                    new ParallelOptions { MaxDegreeOfParallelism = threads },
+                    new ParallelOptions { MaxDegreeOfParallelism = threads, CancellationToken = cancellationToken },
                     () => new CaptureZoneWorker(grid, length, arcStep, options.GuardRule),
                     (chunk, _, worker) =>
                     {

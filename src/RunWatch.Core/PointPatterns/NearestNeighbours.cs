@@ -10,11 +10,11 @@ namespace RunWatch.Core.PointPatterns;
 public static class NearestNeighbours
 {
     /// <summary>Distance from each point to its nearest other point (+∞ for a lone point in a plain field).</summary>
-    public static double[] Distances(ReadOnlySpan<Point2D> points, CaptureField field)
+    public static double[] Distances(ReadOnlySpan<Point2D> points, CaptureField field, CancellationToken cancellationToken = default)
     {
         var distances = new double[points.Length];
         var neighbours = new int[points.Length];
-        Compute(points, field, distances, neighbours);
+        Compute(points, field, distances, neighbours, cancellationToken);
         return distances;
     }
 
@@ -22,7 +22,8 @@ public static class NearestNeighbours
     /// Fills <paramref name="distances"/> and <paramref name="neighbours"/> (index of the nearest point, −1 if
     /// none), in input order. Spans must be as long as <paramref name="points"/>.
     /// </summary>
-    public static void Compute(ReadOnlySpan<Point2D> points, CaptureField field, Span<double> distances, Span<int> neighbours)
+    /// <exception cref="OperationCanceledException"><paramref name="cancellationToken"/> was cancelled (checked every 64 points and 64 rings).</exception>
+    public static void Compute(ReadOnlySpan<Point2D> points, CaptureField field, Span<double> distances, Span<int> neighbours, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(field);
         if (distances.Length != points.Length || neighbours.Length != points.Length)
@@ -32,14 +33,18 @@ public static class NearestNeighbours
         var grid = new PointGrid(points, field);
         for (int slot = 0; slot < grid.Count; slot++)
         {
-            (double d2, int nearest) = Nearest(grid, slot);
+            if ((slot & 63) == 0)
+            {
+                cancellationToken.ThrowIfCancellationRequested();
+            }
+            (double d2, int nearest) = Nearest(grid, slot, cancellationToken);
             int index = grid.Index[slot];
             distances[index] = Math.Sqrt(d2);
             neighbours[index] = nearest;
         }
     }
 
-    private static (double DistanceSquared, int Index) Nearest(PointGrid g, int slot)
+    private static (double DistanceSquared, int Index) Nearest(PointGrid g, int slot, CancellationToken cancellationToken)
     {
         bool periodic = g.Field.Periodic;
         double px = g.X[slot], py = g.Y[slot];
@@ -48,6 +53,11 @@ public static class NearestNeighbours
         int bestIndex = -1;
         for (int ring = 0; ; ring++)
         {
+            // A degenerate grid (cells far smaller than the spacing) needs many rings: stay stoppable.
+            if ((ring & 63) == 63)
+            {
+                cancellationToken.ThrowIfCancellationRequested();
+            }
             double bound = g.RingLowerBound(px, py, cx, cy, ring);
             if (bound * bound > best)
             {

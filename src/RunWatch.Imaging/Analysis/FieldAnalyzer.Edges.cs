@@ -6,18 +6,23 @@ namespace RunWatch.Imaging.Analysis;
 public static partial class FieldAnalyzer
 {
     /// <summary>The sub-pixel edge step for every object, row bands in parallel (one <see cref="EdgeRefiner"/> per thread).</summary>
-    private static EdgeProfile[] RefineEdges(List<RawWire> raw, ushort[] image, int[] labels, int width, int validHeight, double cosTilt, out double[] alignedProfiles)
+    private static EdgeProfile[] RefineEdges(List<RawWire> raw, ushort[] image, int[] labels, int width, int validHeight, double cosTilt, out double[] alignedProfiles,
+        CancellationToken cancellationToken)
     {
         var result = new EdgeProfile[raw.Count];
         double[] profiles = alignedProfiles = new double[raw.Count * EdgeRefiner.Bins];
         // Contiguous chunks, one refiner (and its buffers) per chunk.
         int chunks = Math.Max(1, Math.Min(raw.Count, Environment.ProcessorCount * 4));
-        Parallel.For(0, chunks, chunk =>
+        Parallel.For(0, chunks, new ParallelOptions { CancellationToken = cancellationToken }, chunk =>
         {
             var refiner = new EdgeRefiner();
             int from = (int)((long)raw.Count * chunk / chunks), to = (int)((long)raw.Count * (chunk + 1) / chunks);
             for (int i = from; i < to; i++)
             {
+                if ((i & 31) == 0)
+                {
+                    cancellationToken.ThrowIfCancellationRequested(); // every 32 wires (48 rays each)
+                }
                 result[i] = refiner.Measure(image, labels, width, 0, validHeight, raw[i], cosTilt, profiles.AsSpan(i * EdgeRefiner.Bins, EdgeRefiner.Bins));
             }
         });

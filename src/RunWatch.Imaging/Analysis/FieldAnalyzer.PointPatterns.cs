@@ -15,7 +15,8 @@ public static partial class FieldAnalyzer
     /// (Voronoi cell ∩ disc of radius L) and the generalised Wigner surmise fitted to the unguarded Voronoi cells.
     /// </summary>
     private static (WireMeasurement[] Wires, FieldStatistics Stats) AddPointPatterns(
-        WireMeasurement[] wires, FieldStatistics stats, int width, int validHeight, double lengthScale, double? diffusionLength, List<string> notes)
+        WireMeasurement[] wires, FieldStatistics stats, int width, int validHeight, double lengthScale, double? diffusionLength, List<string> notes,
+        CancellationToken cancellationToken)
     {
         if (wires.Length < 2)
         {
@@ -29,7 +30,7 @@ public static partial class FieldAnalyzer
         var field = CaptureField.Rectangle(width * lengthScale, validHeight * lengthScale);
         try
         {
-            double[] nn = NearestNeighbours.Distances(points, field);
+            double[] nn = NearestNeighbours.Distances(points, field, cancellationToken);
             var interiorNn = new List<double>(wires.Length);
             for (int i = 0; i < wires.Length; i++)
             {
@@ -41,12 +42,14 @@ public static partial class FieldAnalyzer
             }
             stats = stats with { NearestNeighbourDistance = DistributionSummary.Of(interiorNn.ToArray()) };
 
+            cancellationToken.ThrowIfCancellationRequested();
             ClarkEvansResult ce = ClarkEvans.Compute(points, field);
             stats = stats with { ClarkEvansR = ce.Ratio, ClarkEvansZ = ce.Z };
 
             if (diffusionLength is { } l)
             {
-                CaptureZoneResult zones = CaptureZones.Compute(points, field, new CaptureZoneOptions { DiffusionLength = l });
+                cancellationToken.ThrowIfCancellationRequested();
+                CaptureZoneResult zones = CaptureZones.Compute(points, field, new CaptureZoneOptions { DiffusionLength = l }, cancellationToken);
                 var normalized = new List<double>(wires.Length);
                 for (int i = 0; i < wires.Length; i++)
                 {
@@ -61,7 +64,8 @@ public static partial class FieldAnalyzer
                 stats = stats with { CentroidZoneNormalized = DistributionSummary.Of(normalized.ToArray()) };
             }
 
-            double[] cells = CaptureZones.Compute(points, field).UnguardedAreas();
+            cancellationToken.ThrowIfCancellationRequested();
+            double[] cells = CaptureZones.Compute(points, field, null, cancellationToken).UnguardedAreas();
             if (cells.Length >= MinCellsForWignerFit)
             {
                 WignerFitResult fit = WignerSurmiseFit.Fit(cells);

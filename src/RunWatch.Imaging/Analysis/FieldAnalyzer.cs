@@ -20,7 +20,15 @@ public static partial class FieldAnalyzer
     public static FieldAnalysis Analyze(string path, FieldAnalysisOptions? options = null) => AnalyzeWithRaster(path, options).Analysis;
 
     /// <summary>As <see cref="Analyze(string, FieldAnalysisOptions?)"/>, also returning the rasters for an overlay.</summary>
-    public static (FieldAnalysis Analysis, FieldRaster Raster) AnalyzeWithRaster(string path, FieldAnalysisOptions? options = null)
+    public static (FieldAnalysis Analysis, FieldRaster Raster) AnalyzeWithRaster(string path, FieldAnalysisOptions? options = null) =>
+        AnalyzeWithRaster(path, options, CancellationToken.None);
+
+    /// <summary>
+    /// As <see cref="AnalyzeWithRaster(string, FieldAnalysisOptions?)"/>, stopping with <see cref="OperationCanceledException"/>
+    /// soon after <paramref name="cancellationToken"/> is cancelled: it is checked between stages and every few
+    /// wires, rows or points inside them, so a time budget really ends the work.
+    /// </summary>
+    public static (FieldAnalysis Analysis, FieldRaster Raster) AnalyzeWithRaster(string path, FieldAnalysisOptions? options, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(path);
         options ??= new FieldAnalysisOptions();
@@ -29,7 +37,8 @@ public static partial class FieldAnalyzer
         GrayImage image = GrayImageDecoder.Decode(path, options.Limits);
         double decodeMs = clock.Elapsed.TotalMilliseconds;
         FieldSidecar? sidecar = FieldSidecar.TryLoadFor(path);
-        return Run(image, Path.GetFileName(path), sidecar, options, decodeMs);
+        cancellationToken.ThrowIfCancellationRequested();
+        return Run(image, Path.GetFileName(path), sidecar, options, decodeMs, cancellationToken);
     }
 
     /// <summary>Analyses an image already in memory.</summary>
@@ -38,21 +47,22 @@ public static partial class FieldAnalyzer
         ArgumentNullException.ThrowIfNull(image);
         options ??= new FieldAnalysisOptions();
         options.Validate();
-        return Run(image, name, sidecar, options, 0);
+        return Run(image, name, sidecar, options, 0, CancellationToken.None);
     }
 
     /// <summary>
     /// A strip at the top is cut off and the rest analysed as its own image; positions are then shifted back and the
     /// label rasters padded, so callers see the whole field's coordinates.
     /// </summary>
-    private static (FieldAnalysis, FieldRaster) Run(GrayImage image, string name, FieldSidecar? sidecar, FieldAnalysisOptions options, double decodeMs)
+    private static (FieldAnalysis, FieldRaster) Run(GrayImage image, string name, FieldSidecar? sidecar, FieldAnalysisOptions options, double decodeMs,
+        CancellationToken cancellationToken)
     {
         int w = image.Width, h = image.Height;
         bool detect = options.DetectInfoStrip && sidecar?.ExcludedBottomRows is null && options.ExcludedBottomRows is null;
         int top = detect ? InfoStripDetector.DetectTopRows(image.Pixels, w, h) : 0;
         if (top == 0 || top >= h - 8)
         {
-            return RunRows(image, name, sidecar, options, decodeMs);
+            return RunRows(image, name, sidecar, options, decodeMs, cancellationToken);
         }
         var below = new GrayImage(w, h - top, image.Pixels[(top * w)..])
         {
@@ -60,7 +70,7 @@ public static partial class FieldAnalyzer
             SourceFormat = image.SourceFormat,
             Resolution = image.Resolution,
         };
-        (FieldAnalysis a, FieldRaster r) = RunRows(below, name, sidecar, options, decodeMs);
+        (FieldAnalysis a, FieldRaster r) = RunRows(below, name, sidecar, options, decodeMs, cancellationToken);
         double lengthScale = a.Scale.HasScale ? a.Scale.PixelSizeNm!.Value : 1;
         double cosTilt = sidecar?.TiltDeg is { } t && Math.Abs(t) > 1 ? Math.Cos(t * Math.PI / 180) : 1;
         double shift = top / cosTilt * lengthScale;
@@ -88,7 +98,8 @@ public static partial class FieldAnalyzer
         return (shifted, new FieldRaster(image, labels, zones, r.ValidHeight + top));
     }
 
-    private static (FieldAnalysis, FieldRaster) RunRows(GrayImage image, string name, FieldSidecar? sidecar, FieldAnalysisOptions options, double decodeMs)
+    private static (FieldAnalysis, FieldRaster) RunRows(GrayImage image, string name, FieldSidecar? sidecar, FieldAnalysisOptions options, double decodeMs,
+        CancellationToken cancellationToken)
     {
         var timings = new List<StageTiming>();
         if (decodeMs > 0)
@@ -101,6 +112,7 @@ public static partial class FieldAnalyzer
         {
             timings.Add(new StageTiming(stage, clock.Elapsed.TotalMilliseconds));
             clock.Restart();
+            cancellationToken.ThrowIfCancellationRequested();
         }
 
         int w = image.Width;
@@ -140,12 +152,12 @@ public static partial class FieldAnalyzer
         processed = null!;
         Mark("label");
 
-        List<RawWire> raw = SplitAndMeasure(labels, image.Pixels, w, count, boxes, options);
+        List<RawWire> raw = SplitAndMeasure(labels, image.Pixels, w, count, boxes, options, cancellationToken);
         Mark("split+measure");
 
         double cosTilt = sidecar?.TiltDeg is { } t && Math.Abs(t) > 1 ? Math.Cos(t * Math.PI / 180) : 1;
         double[] alignedProfiles = [];
-        EdgeProfile[]? edges = options.SubPixelEdges ? RefineEdges(raw, image.Pixels, labels, w, validH, cosTilt, out alignedProfiles) : null;
+        EdgeProfile[]? edges = options.SubPixelEdges ? RefineEdges(raw, image.Pixels, labels, w, validH, cosTilt, out alignedProfiles, cancellationToken) : null;
         Mark("sub-pixel edges");
 
         double pixelNm = scale.PixelSizeNm ?? 1;
@@ -159,7 +171,7 @@ public static partial class FieldAnalyzer
         if (lengthL is { } l)
         {
             zoneMap = options.KeepZoneMap ? new int[w * h] : null;
-            zoneAreas = RasterCaptureZones.Compute(labels, w, h, validH, wires.Length, l / lengthScale, zoneMap, work);
+            zoneAreas = RasterCaptureZones.Compute(labels, w, h, validH, wires.Length, l / lengthScale, zoneMap, work, cancellationToken);
             Mark("edge zones");
         }
 
@@ -167,7 +179,7 @@ public static partial class FieldAnalyzer
         int planeH = (int)Math.Round(validH / cosTilt);
         (wires, FieldStatistics stats) = Summarise(wires, w, planeH, lengthScale, scale.HasScale, lengthL, zoneAreas, notes);
         Mark("statistics");
-        (wires, stats) = AddPointPatterns(wires, stats, w, planeH, lengthScale, lengthL, notes);
+        (wires, stats) = AddPointPatterns(wires, stats, w, planeH, lengthScale, lengthL, notes, cancellationToken);
         Mark("point patterns");
         if (wires.Length == 0)
         {
@@ -270,11 +282,13 @@ public static partial class FieldAnalyzer
         return options.DiffusionLengthPixels;
     }
 
-    private static List<RawWire> SplitAndMeasure(int[] labels, ushort[] intensity, int width, int count, ComponentBox[] boxes, FieldAnalysisOptions options)
+    private static List<RawWire> SplitAndMeasure(int[] labels, ushort[] intensity, int width, int count, ComponentBox[] boxes, FieldAnalysisOptions options,
+        CancellationToken cancellationToken)
     {
         var perComponent = new List<RawWire>[count + 1];
         var maps = new int[]?[count + 1];
-        Parallel.For(1, count + 1, () => new ComponentSplitter(options.HMaximaPixels, options.CompactFactor, options.MaxHolePixels, options.NotchDepthPixels), (c, _, splitter) =>
+        // Parallel.For checks the token before each component it hands out.
+        Parallel.For(1, count + 1, new ParallelOptions { CancellationToken = cancellationToken }, () => new ComponentSplitter(options.HMaximaPixels, options.CompactFactor, options.MaxHolePixels, options.NotchDepthPixels), (c, _, splitter) =>
         {
             var list = new List<RawWire>(1);
             maps[c] = splitter.Process(labels, intensity, width, c, boxes[c], list);

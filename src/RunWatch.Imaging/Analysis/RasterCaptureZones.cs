@@ -11,14 +11,15 @@ namespace RunWatch.Imaging.Analysis;
 internal static class RasterCaptureZones
 {
     /// <summary>Zone area in pixels per label (index = label); optionally writes the zone label of every pixel into <paramref name="zoneMap"/>.</summary>
-    public static long[] Compute(int[] labels, int width, int height, int validHeight, int maxLabel, double radiusPixels, int[]? zoneMap, ushort[]? scratch = null)
+    public static long[] Compute(int[] labels, int width, int height, int validHeight, int maxLabel, double radiusPixels, int[]? zoneMap, ushort[]? scratch = null,
+        CancellationToken cancellationToken = default)
     {
         ushort[] nearestRow = scratch is { } s && s.Length >= labels.Length ? s : new ushort[labels.Length];
         DistanceTransform.ColumnPass16(labels, width, height, nearestRow);
         double limit2 = radiusPixels * radiusPixels;
         var total = new long[maxLabel + 1];
         object gate = new();
-        Parallel.For(0, BoxBlur.BandCount(validHeight), () => new long[maxLabel + 1], (band, _, areas) =>
+        Parallel.For(0, BoxBlur.BandCount(validHeight), new ParallelOptions { CancellationToken = cancellationToken }, () => new long[maxLabel + 1], (band, _, areas) =>
         {
             (int y0, int y1) = BoxBlur.Band(band, validHeight);
             var scratch = new DistanceTransform.RowScratch(width);
@@ -27,6 +28,10 @@ internal static class RasterCaptureZones
             var rowNear = new int[width];
             for (int y = y0; y < y1; y++)
             {
+                if ((y & 15) == 0)
+                {
+                    cancellationToken.ThrowIfCancellationRequested(); // every 16 rows
+                }
                 ReadOnlySpan<ushort> packed = nearestRow.AsSpan(y * width, width);
                 for (int x = 0; x < width; x++)
                 {

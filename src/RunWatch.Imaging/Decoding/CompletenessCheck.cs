@@ -6,7 +6,7 @@ namespace RunWatch.Imaging.Decoding;
 /// Detects files cut short: the decoders fill what is missing with zeros rather than fail. PNG: the chunk chain
 /// must reach IEND inside the file (ISO/IEC 15948 §5.3) and the image data must inflate to every scanline
 /// (<see cref="PngImageData"/>); JPEG: an EOI marker (FFD9) must close the data
-/// (ITU-T T.81 B.2.1, trailing bytes tolerated); BMP: the pixel array must fit (bfOffBits + stride × height);
+/// (ITU-T T.81 B.2.1, trailing bytes tolerated) and each scan must hold every MCU (<see cref="JpegScanCheck"/>); BMP: the pixel array must fit (bfOffBits + stride × height);
 /// TIFF: see <see cref="TiffExtentCheck"/>.
 /// </summary>
 internal static class CompletenessCheck
@@ -56,14 +56,20 @@ internal static class CompletenessCheck
         var bytes = new byte[tail];
         stream.Position = length - tail;
         stream.ReadExactly(bytes);
-        for (int i = tail - 2; i >= 0; i--)
+        bool ended = false;
+        for (int i = tail - 2; i >= 0 && !ended; i--)
         {
-            if (bytes[i] == 0xFF && bytes[i + 1] == 0xD9)
-            {
-                return null;
-            }
+            ended = bytes[i] == 0xFF && bytes[i + 1] == 0xD9;
         }
-        return "the JPEG data has no end-of-image marker (truncated)";
+        if (!ended)
+        {
+            return "the JPEG data has no end-of-image marker (truncated)";
+        }
+        // An end marker alone proves little: a cut file with FF D9 appended has one. The scans must hold every block.
+        var whole = new byte[length];
+        stream.Position = 0;
+        stream.ReadExactly(whole);
+        return JpegScanCheck.FindProblem(whole);
     }
 
     private static string? Bmp(Stream stream)

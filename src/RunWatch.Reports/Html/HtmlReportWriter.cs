@@ -41,12 +41,18 @@ public static partial class HtmlReportWriter
         }
         KeyValues(h, [
             ("Run", E(id.RunId)), ("Recipe", E(id.Recipe)), ("Chamber", E(id.Chamber)),
-            ("Run start", Time(id.RunStart)), ("Run end", Time(id.RunEnd)),
-            ("Report written", Time(id.GeneratedAt)), ("RunWatch", E(id.SoftwareVersion)),
+            ("Run start", Time(id.RunStart, id.TimeZoneId)), ("Run end", Time(id.RunEnd, id.TimeZoneId)),
+            ("Report written", Time(id.GeneratedAt, id.TimeZoneId)), ("RunWatch", E(id.SoftwareVersion)),
         ]);
+        h.Append("<p class=\"clock\">").Append(E(ClockNote(id.TimeZoneId))).Append("</p>\n");
+        if (report.Provenance is { } p)
+        {
+            KeyValues(h, [("Revision", p.Revision.ToString(System.Globalization.CultureInfo.InvariantCulture) + " · " + E(p.Reason) + " · asked by " + E(p.Requester))]);
+        }
         h.Append("</header>\n");
 
         Verdict(h, report.Verdict);
+        PredictionSummary(h, report);
         Thermal(h, report.Thermal, charts.Thermal);
         Fields(h, report.Fields);
         Wires(h, report, charts.Histogram);
@@ -54,6 +60,10 @@ public static partial class HtmlReportWriter
         PredictionSection(h, report, charts.PredictedVersusMeasured);
         WireTable(h, report);
 
+        if (report.Provenance is { } record)
+        {
+            Record(h, record, id.SoftwareVersion);
+        }
         if (id.Notes.Count > 0)
         {
             h.Append("<section>\n<h2>Notes</h2>\n<ul>\n");
@@ -264,11 +274,48 @@ public static partial class HtmlReportWriter
         h.Append("<table>\n<thead><tr><th>Parameter</th><th>Estimate</th><th>SE</th><th>95 % interval</th><th>Unit</th></tr></thead>\n<tbody>\n");
         foreach (ParameterEstimate p in parameters)
         {
-            h.Append("<tr><td>").Append(E(p.Name)).Append("</td><td class=\"num\">").Append(Number(p.Value, "0.####")).Append("</td><td class=\"num\">")
-                .Append(Number(p.StandardError, "0.####")).Append("</td><td class=\"num\">").Append(Number(p.Lower95, "0.####")).Append(" to ")
-                .Append(Number(p.Upper95, "0.####")).Append("</td><td>").Append(E(p.Unit)).Append("</td></tr>\n");
+            string f = ParameterFormat(p.Unit);
+            h.Append("<tr><td>").Append(E(p.Name)).Append("</td><td class=\"num\">").Append(Number(p.Value, f)).Append("</td><td class=\"num\">")
+                .Append(Number(p.StandardError, f)).Append("</td><td class=\"num\">").Append(Number(p.Lower95, f)).Append(" to ")
+                .Append(Number(p.Upper95, f)).Append("</td><td>").Append(E(p.Unit)).Append("</td></tr>\n");
         }
         h.Append("</tbody>\n</table>\n");
+    }
+
+    /// <summary>The prediction in brief, on the first page beside the verdict; the full section follows later.</summary>
+    private static void PredictionSummary(StringBuilder h, WaferReport report)
+    {
+        h.Append("<section class=\"prediction-summary\">\n<h2>Prediction summary</h2>\n");
+        KeyValues(h, [.. PredictionSummaryRows(report)]);
+        h.Append("</section>\n");
+    }
+
+    /// <summary>Rows shared by the HTML and PDF first pages (plain text; the HTML encodes nothing here that came from outside).</summary>
+    internal static IEnumerable<(string Key, string Value)> PredictionSummaryRows(WaferReport report)
+    {
+        yield return ("Measured mean radius", Number(report.Statistics.MeanRadiusNm, "0.0") + " nm (" + report.Statistics.Count + " wires)");
+        yield return report.Prediction is { } p
+            ? ("Predicted before SEM", Number(p.MeanRadiusNm, "0.0") + " nm, 5–95 % " + Number(p.P05Nm, "0.0") + " to " + Number(p.P95Nm, "0.0") + " nm")
+            : ("Predicted before SEM", "no prediction (no accepted radius model yet)");
+        yield return report.Comparison is { } c
+            ? ("Predicted against measured", "bias " + Number(c.BiasNm, "+0.0;−0.0") + " nm, RMSE " + Number(c.RmseNm, "0.0") + " nm, r² " + Number(c.RSquared, "0.000") + " over " + c.Count + " wires")
+            : ("Predicted against measured", "not compared (no accepted radius model yet)");
+    }
+
+    private static void Record(StringBuilder h, ReportProvenance p, string softwareVersion)
+    {
+        h.Append("<section class=\"record\">\n<h2>Record</h2>\n<p>This report is revision ").Append(p.Revision)
+            .Append(" of this wafer's report; earlier revisions are kept unchanged. The SHA-256 of its files is listed in content.sha256 beside it; <code>runwatch verify</code> checks them.</p>\n");
+        KeyValues(h, [
+            ("Reason", E(p.Reason)), ("Asked by", E(p.Requester)), ("RunWatch", E(softwareVersion)),
+            ("Configuration and specification (SHA-256)", "<code>" + E(p.ConfigSha256) + "</code>"), ("Radius model", E(p.ModelId)),
+        ]);
+        h.Append("<table>\n<thead><tr><th>Input image</th><th>SHA-256</th></tr></thead>\n<tbody>\n");
+        foreach (ReportInputFile input in p.Inputs)
+        {
+            h.Append("<tr><td>").Append(E(input.Name)).Append("</td><td><code>").Append(E(input.Sha256)).Append("</code></td></tr>\n");
+        }
+        h.Append("</tbody>\n</table>\n</section>\n");
     }
 
     private static void KeyValues(StringBuilder h, (string Key, string EncodedValue)[] rows)

@@ -24,7 +24,10 @@ public static class JsonSummaryWriter
             : null;
         var fields = report.Fields.Select(f => new FieldFigures(f.FieldName, f.WireCount, f.Caption)).ToArray();
         return new WaferReportSummary(SchemaVersion, report.Identity, thermal, report.Statistics, report.Model, report.CaptureRadiusNm,
-            report.Prediction, comparison, report.Verdict, fields, ReportWording.Caution, report.Diffusion);
+            report.Prediction, comparison, report.Verdict, fields, ReportWording.Caution, report.Diffusion)
+        {
+            Provenance = report.Provenance,
+        };
     }
 
     /// <summary>The summary as indented JSON.</summary>

@@ -31,4 +31,8 @@ public sealed record WaferReportSummary(
     QcVerdict Verdict,
     IReadOnlyList<FieldFigures> Fields,
     string Caution,
-    DiffusionModelFigures? Diffusion = null);
+    DiffusionModelFigures? Diffusion = null)
+{
+    /// <summary>Revision, reason, requester, configuration hash, model and input hashes; null when not a stored record.</summary>
+    public ReportProvenance? Provenance { get; init; }
+}

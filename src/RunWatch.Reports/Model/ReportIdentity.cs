@@ -21,4 +21,11 @@ public sealed record ReportIdentity(
     DateTimeOffset GeneratedAt,
     string SoftwareVersion,
     string DataLabel,
-    IReadOnlyList<string> Notes);
+    IReadOnlyList<string> Notes)
+{
+    /// <summary>
+    /// IANA or Windows id of the lab's time zone: every time in the report is shown in it with its UTC offset, the
+    /// dashboard's convention (RunWatch:Dashboard:TimeZone). Null or empty means the machine's local zone.
+    /// </summary>
+    public string? TimeZoneId { get; init; }
+}

@@ -30,4 +30,8 @@ public sealed record WaferReport(
     PredictedVsMeasured? Comparison,
     QcVerdict Verdict,
     DiffusionModelFigures? Diffusion = null,
-    DropletFigures? Droplets = null);
+    DropletFigures? Droplets = null)
+{
+    /// <summary>Revision, reason, requester and what the report was made from; null for a report that is not a stored record.</summary>
+    public ReportProvenance? Provenance { get; init; }
+}

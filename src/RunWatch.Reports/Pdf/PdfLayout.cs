@@ -104,20 +104,20 @@ internal sealed class PdfLayout : IDisposable
         _y += 4;
     }
 
-    /// <summary>A table; <paramref name="widths"/> are fractions of the content width. Long cells are cut with an ellipsis.</summary>
+    /// <summary>A table; <paramref name="widths"/> are fractions of the content width. Long cells wrap onto more lines (a row is as tall as its tallest cell); nothing is cut.</summary>
     public void Table(IReadOnlyList<string> headers, IReadOnlyList<string[]> rows, IReadOnlyList<float> widths, IReadOnlyList<SKColor?>? rowColours = null)
     {
         float rowHeight = _body.Size * 1.55f;
         void Header()
         {
-            Ensure(rowHeight * 2);
+            Ensure(RowHeight(headers, widths, _bold) + rowHeight);
             Canvas.DrawRect(Margin, _y, ContentWidth, rowHeight, _shade);
             DrawRow(headers, widths, _bold, _ink);
         }
         Header();
         for (int r = 0; r < rows.Count; r++)
         {
-            if (_y + rowHeight > Bottom)
+            if (_y + RowHeight(rows[r], widths, _body) > Bottom)
             {
                 NewPage();
                 Header();
@@ -184,16 +184,31 @@ internal sealed class PdfLayout : IDisposable
         _shade.Dispose();
     }
 
+    private float RowHeight(IReadOnlyList<string> cells, IReadOnlyList<float> widths, SKFont font)
+    {
+        int lines = 1;
+        for (int c = 0; c < cells.Count && c < widths.Count; c++)
+        {
+            lines = Math.Max(lines, Wrap(cells[c], font, (widths[c] * ContentWidth) - 6).Count);
+        }
+        return (font.Size * 1.55f) + ((lines - 1) * font.Size * 1.3f);
+    }
+
     private void DrawRow(IReadOnlyList<string> cells, IReadOnlyList<float> widths, SKFont font, SKPaint paint)
     {
         float x = Margin;
         for (int c = 0; c < cells.Count && c < widths.Count; c++)
         {
             float w = widths[c] * ContentWidth;
-            Canvas.DrawText(Fit(cells[c], font, w - 6), x + 3, _y + font.Size + 1.5f, SKTextAlign.Left, font, paint);
+            float y = _y + font.Size + 1.5f;
+            foreach (string line in Wrap(cells[c], font, w - 6))
+            {
+                Canvas.DrawText(line, x + 3, y, SKTextAlign.Left, font, paint);
+                y += font.Size * 1.3f;
+            }
             x += w;
         }
-        _y += font.Size * 1.55f;
+        _y += RowHeight(cells, widths, font);
         Canvas.DrawLine(Margin, _y, PageWidth - Margin, _y, _rule);
     }
 

@@ -53,14 +53,21 @@ public static partial class PdfReportWriter
             EncodingQuality = 101,
         };
         using SKDocument document = SKDocument.CreatePdf(output, metadata) ?? throw new InvalidOperationException("SkiaSharp could not create a PDF document.");
-        using (var page = new PdfLayout(document, "RunWatch wafer report · " + id.WaferId + " · run " + id.RunId + " · " + Time(id.GeneratedAt)))
+        using (var page = new PdfLayout(document, "RunWatch wafer report · " + id.WaferId + " · run " + id.RunId + " · " + Time(id.GeneratedAt, id.TimeZoneId)))
         {
             page.Title("Wafer report " + id.WaferId, id.DataLabel);
             page.KeyValues([
                 ("Run", id.RunId), ("Recipe", id.Recipe), ("Chamber", id.Chamber),
-                ("Run start", Time(id.RunStart)), ("Run end", Time(id.RunEnd)), ("Report written", Time(id.GeneratedAt)),
+                ("Run start", Time(id.RunStart, id.TimeZoneId)), ("Run end", Time(id.RunEnd, id.TimeZoneId)), ("Report written", Time(id.GeneratedAt, id.TimeZoneId)),
             ]);
+            page.Paragraph(ClockNote(id.TimeZoneId));
+            if (report.Provenance is { } p)
+            {
+                page.KeyValues([("Revision", p.Revision.ToString(CultureInfo.InvariantCulture) + " · " + p.Reason + " · asked by " + p.Requester)]);
+            }
             Verdict(page, report.Verdict);
+            page.Heading("Prediction summary", keepWithNext: 40);
+            page.KeyValues([.. HtmlReportWriter.PredictionSummaryRows(report)]);
             Thermal(page, report.Thermal, charts.Thermal);
             Fields(page, report.Fields);
             Statistics(page, report.Statistics, charts.Histogram);
@@ -71,6 +78,10 @@ public static partial class PdfReportWriter
             ModelSection(page, report, charts.RadiusVersusArea);
             Prediction(page, report, charts.PredictedVersusMeasured);
             Wires(page, report);
+            if (report.Provenance is { } record)
+            {
+                Record(page, record, id.SoftwareVersion);
+            }
             if (id.Notes.Count > 0)
             {
                 page.Heading("Notes");
@@ -208,11 +219,11 @@ public static partial class PdfReportWriter
         var rows = new List<string[]>();
         foreach (ParameterEstimate p in m.Parameters)
         {
-            rows.Add([p.Name, Number(p.Value, "0.####"), Number(p.StandardError, "0.####"), Number(p.Lower95, "0.####") + " to " + Number(p.Upper95, "0.####"), p.Unit]);
+            rows.Add([p.Name, Number(p.Value, ParameterFormat(p.Unit)), Number(p.StandardError, ParameterFormat(p.Unit)), Number(p.Lower95, ParameterFormat(p.Unit)) + " to " + Number(p.Upper95, ParameterFormat(p.Unit)), p.Unit]);
         }
         page.Table(["Parameter", "Estimate", "SE", "95 % interval", "Unit"], rows, [0.16f, 0.2f, 0.2f, 0.32f, 0.12f]);
         page.KeyValues([
-            ("Fit", m.Count + " wires, r² " + Number(m.RSquared, "0.0000") + ", adjusted r² " + Number(m.AdjustedRSquared, "0.0000") + ", RMSE " + Number(m.RmseNm, "0.00") + " nm, AIC " + Number(m.Aic, "0.0")),
+            ("Fit", m.Count + " wires, r² " + Number(m.RSquared, "0.0000") + ", adjusted r² " + Number(m.AdjustedRSquared, "0.0000") + ", RMSE " + Number(m.RmseNm, "0.0") + " nm, AIC " + Number(m.Aic, "0.0")),
         ]);
     }
 
@@ -237,14 +248,42 @@ public static partial class PdfReportWriter
         {
             page.SubHeading("After SEM");
             page.KeyValues([
-                ("Agreement", c.Count + " wires, r² " + Number(c.RSquared, "0.000") + ", RMSE " + Number(c.RmseNm, "0.00") + " nm"),
-                ("Bias (predicted − measured)", Number(c.BiasNm, "+0.00;−0.00") + " nm, mean |error| " + Number(c.MeanAbsoluteErrorNm, "0.00") + " nm"),
+                ("Agreement", c.Count + " wires, r² " + Number(c.RSquared, "0.000") + ", RMSE " + Number(c.RmseNm, "0.0") + " nm"),
+                ("Bias (predicted − measured)", Number(c.BiasNm, "+0.0;−0.0") + " nm, mean |error| " + Number(c.MeanAbsoluteErrorNm, "0.0") + " nm"),
             ]);
         }
         if (chart is not null)
         {
             page.Image(chart.Png, page.ContentWidth * 0.8f);
         }
+    }
+
+    private static void Record(PdfLayout page, ReportProvenance p, string softwareVersion)
+    {
+        page.Heading("Record");
+        page.Paragraph("This report is revision " + p.Revision.ToString(CultureInfo.InvariantCulture)
+            + " of this wafer's report; earlier revisions are kept unchanged. The SHA-256 of its files is listed in content.sha256 beside it; runwatch verify checks them. Hashes are printed in groups of 16 hex digits.");
+        page.KeyValues([
+            ("Reason", p.Reason), ("Asked by", p.Requester), ("RunWatch", softwareVersion),
+            ("Configuration (SHA-256)", Grouped(p.ConfigSha256)), ("Radius model", p.ModelId),
+        ]);
+        var rows = new List<string[]>();
+        foreach (ReportInputFile input in p.Inputs)
+        {
+            rows.Add([input.Name, Grouped(input.Sha256)]);
+        }
+        page.Table(["Input image", "SHA-256"], rows, [0.28f, 0.72f]);
+    }
+
+    /// <summary>A hex hash in groups of 16 digits, so a line can wrap between groups instead of cutting the hash.</summary>
+    private static string Grouped(string hex)
+    {
+        var parts = new List<string>();
+        for (int i = 0; i < hex.Length; i += 16)
+        {
+            parts.Add(hex.Substring(i, Math.Min(16, hex.Length - i)));
+        }
+        return string.Join(' ', parts);
     }
 
     private static void Wires(PdfLayout page, WaferReport report)

@@ -111,11 +111,25 @@ public sealed class FieldAnalysisService(
             DropletContactAngleDeg = await ContactAngleAsync(field.Wafer, run, cancellationToken).ConfigureAwait(false),
         };
         var clock = Stopwatch.StartNew();
+        TimeSpan budget = options.Value.FieldAnalysisBudget;
+        using var overBudget = new CancellationTokenSource(budget, time);
+        using var analysisStop = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken, overBudget.Token);
         try
         {
-            // The analysis does not watch a token; past its budget the field fails and the queue goes on without it.
-            var (analysis, raster) = await Task.Run(() => FieldAnalyzer.AnalyzeWithRaster(field.FilePath, settings), cancellationToken)
-                .WaitAsync(options.Value.FieldAnalysisBudget, time, cancellationToken).ConfigureAwait(false);
+            (FieldAnalysis Analysis, FieldRaster Raster) analysed;
+            try
+            {
+                // The analysis watches the token in its per-wire, per-row and per-point loops, so past its budget the
+                // work itself stops and the queue goes on. The wait's own limit (half a budget more) is only a
+                // backstop for a stage that does not check.
+                analysed = await Task.Run(() => FieldAnalyzer.AnalyzeWithRaster(field.FilePath, settings, analysisStop.Token), analysisStop.Token)
+                    .WaitAsync(budget + (budget / 2), time, cancellationToken).ConfigureAwait(false);
+            }
+            catch (OperationCanceledException) when (overBudget.IsCancellationRequested && !cancellationToken.IsCancellationRequested)
+            {
+                throw new TimeoutException("over budget");
+            }
+            var (analysis, raster) = analysed;
             FieldResult result = FieldResultMapper.From(analysis);
             await OverlayWriter.WriteAsync(analysis, raster, WaferFiles.OverlayPath(reports.FolderFor(field.Wafer), field.Id), cancellationToken).ConfigureAwait(false);
             await wafers.SaveAnalysisAsync(new AnalysisRecord

@@ -20,10 +20,12 @@ public sealed class FieldIntake
     private readonly WaferIdResolver _resolver;
     private readonly TimeProvider _time;
     private readonly ILogger _logger;
+    private readonly IReportRevisionStore _revisions;
 
     public FieldIntake(IWaferStore wafers, IRunWatchStore store, FieldAnalysisQueue queue, string fileNamePattern, TimeProvider time, ILogger<FieldIntake>? logger = null)
     {
         _wafers = wafers;
+        _revisions = wafers as IReportRevisionStore ?? throw new ArgumentException("the wafer store keeps no report revisions (IReportRevisionStore)", nameof(wafers));
         _store = store;
         _queue = queue;
         _resolver = new WaferIdResolver(fileNamePattern);
@@ -78,6 +80,7 @@ public sealed class FieldIntake
         if (stored.Status == FieldStatus.Queued)
         {
             Log.FieldTakenIn(_logger, arrived.RelativePath, wafer!, stored.Id);
+            await RequestRevisionIfIssuedAsync(wafer!, "intake", "new field " + arrived.RelativePath, cancellationToken).ConfigureAwait(false);
             await _queue.EnqueueAsync(stored.Id, cancellationToken).ConfigureAwait(false);
         }
         else
@@ -132,6 +135,7 @@ public sealed class FieldIntake
         await _wafers.UpsertWaferAsync(wafer, run.Id, run.Recipe, cancellationToken).ConfigureAwait(false);
         FieldRecord updated = await _wafers.UpdateFieldAsync(field with { Wafer = wafer, Status = FieldStatus.Queued, Problem = null }, cancellationToken).ConfigureAwait(false);
         await _store.AppendAuditAsync(new AuditEntry(_time.GetUtcNow(), actor, "assign-field", $"field {fieldId} → wafer {wafer}", null), cancellationToken).ConfigureAwait(false);
+        await RequestRevisionIfIssuedAsync(wafer, actor, "field " + (field.RelativePath ?? fieldId.ToString(System.Globalization.CultureInfo.InvariantCulture)) + " assigned", cancellationToken).ConfigureAwait(false);
         await _queue.EnqueueAsync(updated.Id, cancellationToken).ConfigureAwait(false);
         return updated;
     }
@@ -166,11 +170,20 @@ public sealed class FieldIntake
     /// <summary>Re-analyses every analysed or failed field of a wafer, audited with who asked and why. Returns how many were queued.</summary>
     public async Task<int> ReanalyseWaferAsync(string wafer, string actor, string? reason, CancellationToken cancellationToken)
     {
+        ArgumentException.ThrowIfNullOrWhiteSpace(actor);
         int queued = 0;
+        bool requested = false;
         foreach (FieldRecord field in await _wafers.GetFieldsOfWaferAsync(wafer, cancellationToken).ConfigureAwait(false))
         {
             if (field.Status is FieldStatus.Analysed or FieldStatus.Failed)
             {
+                if (!requested)
+                {
+                    // Stored before the fields are queued, so the revision written after them answers it.
+                    string why = "re-analysis requested" + (string.IsNullOrWhiteSpace(reason) ? "" : ": " + reason.Trim());
+                    await _revisions.AddReportRequestAsync(new ReportRequestRecord(0, wafer, _time.GetUtcNow(), actor, why), cancellationToken).ConfigureAwait(false);
+                    requested = true;
+                }
                 await _wafers.UpdateFieldAsync(field with { Status = FieldStatus.Queued, Problem = null }, cancellationToken).ConfigureAwait(false);
                 await _queue.EnqueueAsync(field.Id, cancellationToken).ConfigureAwait(false);
                 queued++;
@@ -179,6 +192,15 @@ public sealed class FieldIntake
         await _store.AppendAuditAsync(new AuditEntry(_time.GetUtcNow(), actor, "reanalyse-wafer", wafer,
             string.IsNullOrWhiteSpace(reason) ? null : AuditDetail.Json(reason)), cancellationToken).ConfigureAwait(false);
         return queued;
+    }
+
+    /// <summary>A wafer whose report was issued gets a request for its next revision, saying why and who asked.</summary>
+    private async Task RequestRevisionIfIssuedAsync(string wafer, string requester, string reason, CancellationToken cancellationToken)
+    {
+        if ((await _revisions.GetReportRevisionsAsync(wafer, cancellationToken).ConfigureAwait(false)).Count > 0)
+        {
+            await _revisions.AddReportRequestAsync(new ReportRequestRecord(0, wafer, _time.GetUtcNow(), requester, reason), cancellationToken).ConfigureAwait(false);
+        }
     }
 
     /// <summary>Re-analyses one field on request, audited with who asked and why.</summary>

@@ -29,12 +29,14 @@ public static class FieldUploadEndpoints
             queue.Failed,
         }));
 
-    /// <summary><c>POST /api/wafers/{wafer}/reanalyse</c>: analyse every field of a wafer again (new settings or model), on request only.</summary>
+    /// <summary><c>POST /api/wafers/{wafer}/reanalyse[?reason=…]</c>: analyse every field of a wafer again (new settings or model), on request only; the next report revision records who asked and why.</summary>
     public static RouteHandlerBuilder MapRunWatchReanalyse(this IEndpointRouteBuilder endpoints) =>
-        endpoints.MapPost("/api/wafers/{wafer}/reanalyse", async (string wafer, HttpContext context, FieldIntake intake, CancellationToken cancellationToken) =>
+        endpoints.MapPost("/api/wafers/{wafer}/reanalyse", async (string wafer, string? reason, HttpContext context, FieldIntake intake, CancellationToken cancellationToken) =>
         {
             string actor = context.User.Identity?.Name ?? "unknown";
-            int queued = await intake.ReanalyseWaferAsync(wafer, actor, cancellationToken).ConfigureAwait(false);
+            // The reason goes into the report's record; keep it one short line.
+            string? note = reason is { Length: > 0 } ? new string([.. reason.Take(200).Where(c => !char.IsControl(c))]) : null;
+            int queued = await intake.ReanalyseWaferAsync(wafer, actor, note, cancellationToken).ConfigureAwait(false);
             return queued == 0 ? Results.NotFound(new { wafer, queued }) : Results.Accepted(value: new { wafer, queued });
         });
 

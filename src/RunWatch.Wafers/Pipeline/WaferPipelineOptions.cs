@@ -53,6 +53,12 @@ public sealed class WaferPipelineOptions
     /// </summary>
     public TimeSpan FieldAnalysisBudget { get; set; } = TimeSpan.FromMinutes(2);
 
+    /// <summary>
+    /// Time zone of the times in reports. Not set on its own: the pipeline takes <c>RunWatch:Dashboard:TimeZone</c>, so
+    /// reports and screens show the same lab-local time with its UTC offset. Empty means the machine's local zone.
+    /// </summary>
+    public string TimeZone { get; set; } = "";
+
     /// <summary>Returns the problems with these options, empty when valid.</summary>
     public IReadOnlyList<string> Validate()
     {
@@ -77,6 +83,10 @@ public sealed class WaferPipelineOptions
         if (FieldAnalysisBudget <= TimeSpan.Zero || FieldAnalysisBudget > TimeSpan.FromHours(1))
         {
             problems.Add("WaferPipeline:FieldAnalysisBudget must be above 0 and at most 1 hour");
+        }
+        if (!string.IsNullOrWhiteSpace(TimeZone) && !TimeZoneInfo.TryFindSystemTimeZoneById(TimeZone, out _))
+        {
+            problems.Add($"RunWatch:Dashboard:TimeZone '{TimeZone}' is not a time zone this machine knows (an IANA id such as Europe/Berlin)");
         }
         if (PredictionFields is < 1 or > 1000)
         {

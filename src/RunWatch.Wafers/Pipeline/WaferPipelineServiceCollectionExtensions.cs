@@ -29,6 +29,8 @@ public static class WaferPipelineServiceCollectionExtensions
             .ValidateOnStart();
         services.AddOptions<WaferPipelineOptions>()
             .Bind(configuration.GetSection(WaferPipelineOptions.SectionName))
+            // One clock for reports and screens: the dashboard's zone setting.
+            .PostConfigure(o => o.TimeZone = configuration["RunWatch:Dashboard:TimeZone"] ?? "")
             .ValidateErrorList(WaferPipelineOptions.SectionName, o => o.Validate())
             .ValidateOnStart();
         services.AddOptions<QcOptions>()

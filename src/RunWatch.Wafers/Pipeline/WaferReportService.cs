@@ -11,12 +11,14 @@ using RunWatch.Core.Wafers;
 using RunWatch.Reports;
 using RunWatch.Reports.Model;
 using RunWatch.Storage;
+using RunWatch.Wafers.Records;
 
 namespace RunWatch.Wafers.Pipeline;
 
 /// <summary>
 /// Gathers a wafer's run, fields and analyses from the store, evaluates it and writes its report files (HTML, PDF,
-/// CSV of every wire, JSON summary) into <c>reports/{wafer}/</c>, recording each in the store.
+/// CSV of every wire, JSON summary) as the wafer's next numbered revision (<c>reports/{wafer}/r{N}/</c>, never
+/// overwritten), recording the revision with its reason, requester and hashes, and each file, in the store.
 /// </summary>
 public sealed class WaferReportService
 {
@@ -28,12 +30,17 @@ public sealed class WaferReportService
     private readonly string _reportsRoot;
     private readonly TimeProvider _time;
     private readonly ILogger _logger;
+    private readonly IReportRevisionStore _revisions;
 
     public WaferReportService(IRunWatchStore store, IWaferStore wafers, IOptions<WaferPipelineOptions> options, IOptions<QcOptions> qc,
-        IOptions<StorageOptions> storage, TimeProvider time, ILogger<WaferReportService>? logger = null, QcSpecificationCatalog? specifications = null)
+        IOptions<StorageOptions> storage, TimeProvider time, ILogger<WaferReportService>? logger = null, QcSpecificationCatalog? specifications = null,
+        IReportRevisionStore? revisions = null)
     {
         _store = store;
         _wafers = wafers;
+        // Both stores keep revisions; a store that does not cannot issue records, so it is refused here, not later.
+        _revisions = revisions ?? wafers as IReportRevisionStore
+            ?? throw new ArgumentException("the wafer store keeps no report revisions (IReportRevisionStore)", nameof(wafers));
         _options = options.Value;
         _qc = qc.Value;
         _specifications = specifications;
@@ -45,10 +52,20 @@ public sealed class WaferReportService
     /// <summary>Folder where overlays and reports of <paramref name="wafer"/> go.</summary>
     public string FolderFor(string wafer) => Path.Combine(_reportsRoot, SafeFolderName(wafer));
 
-    /// <summary>Evaluates the wafer and writes its report files.</summary>
+    /// <summary>
+    /// Evaluates the wafer and writes its next report revision, answering the wafer's pending requests (re-analysis,
+    /// new field); without one the reason is "first issue" (asked by "intake") or "written again".
+    /// </summary>
     /// <exception cref="KeyNotFoundException">The wafer is unknown or has no analysed field.</exception>
-    public async Task<WaferReportOutcome> WriteAsync(string wafer, CancellationToken cancellationToken)
+    public Task<WaferReportOutcome> WriteAsync(string wafer, CancellationToken cancellationToken) => WriteAsync(wafer, null, cancellationToken);
+
+    /// <summary>
+    /// As <see cref="WriteAsync(string, CancellationToken)"/>; <paramref name="onDemand"/> (requester and reason, for
+    /// example from <c>runwatch report</c>) is recorded with the pending requests.
+    /// </summary>
+    public async Task<WaferReportOutcome> WriteAsync(string wafer, ReportRequestRecord? onDemand, CancellationToken cancellationToken)
     {
+        var inputs = new List<ReportInputHash>();
         WaferRecord record = await _wafers.GetWaferAsync(wafer, cancellationToken).ConfigureAwait(false)
             ?? throw new KeyNotFoundException($"wafer {wafer} is not known");
         RunRecord? run = await _wafers.FindRunOfWaferAsync(wafer, cancellationToken).ConfigureAwait(false);
@@ -68,6 +85,7 @@ public sealed class WaferReportService
             }
             FieldResult result = FieldResultJson.Read(analysis.ResultsJson);
             fields.Add(result);
+            inputs.Add(new ReportInputHash(field.Id, field.RelativePath ?? Path.GetFileName(field.FilePath), field.FilePath, field.Sha256));
             string overlay = WaferFiles.OverlayPath(folder, field.Id);
             if (File.Exists(overlay))
             {
@@ -82,7 +100,7 @@ public sealed class WaferReportService
 
         string recipe = run?.Recipe ?? record.Process ?? _options.DefaultProcess;
         string process = record.Process ?? recipe;
-        RadiusModelFit? accepted = await AcceptedModelAsync(process, cancellationToken).ConfigureAwait(false);
+        (RadiusModelFit? accepted, string modelId) = await AcceptedModelAsync(process, cancellationToken).ConfigureAwait(false);
         (ModelFitRecord Record, DiffusionModelParams Params)? diffusion = null;
         ThermalExposure? exposure = null;
         string? exposureMissing = null;
@@ -186,7 +204,10 @@ public sealed class WaferReportService
         }
         var report = new WaferReport(
             new ReportIdentity(wafer, run?.Name ?? "unknown run", recipe, run?.Chamber ?? "unknown chamber", run?.StartedAt ?? record.CreatedAt,
-                run?.EndedAt, _time.GetUtcNow(), typeof(WaferReportService).Assembly.GetName().Version?.ToString() ?? "dev", DataLabel(run), notes),
+                run?.EndedAt, _time.GetUtcNow(), typeof(WaferReportService).Assembly.GetName().Version?.ToString() ?? "dev", DataLabel(run), notes)
+            {
+                TimeZoneId = _options.TimeZone,
+            },
             thermal,
             thumbnails,
             evaluation.Wires,
@@ -199,7 +220,24 @@ public sealed class WaferReportService
             diffusionFigures,
             DropletFigures.From(fields.SelectMany(f => f.Wires)));
 
-        ReportFiles written = await Task.Run(() => RunWatch.Reports.WaferReportWriter.WriteAll(report, folder), cancellationToken).ConfigureAwait(false);
+        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce,
+            evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null,
+            diffusionFigures is null ? null : DiffusionDigest(diffusionFigures)));
+        string verdict = verdictInForce.Outcome.ToString().ToLowerInvariant();
+        var (reason, requester, answered) = await ReasonAsync(wafer, onDemand, cancellationToken).ConfigureAwait(false);
+        if (evaluation.ModelFittedOnThisWafer)
+        {
+            modelId = "fitted on this wafer (proposed, not accepted)";
+        }
+        if (diffusionFigures is not null)
+        {
+            // The verdict's radius model is the accepted diffusion model; the Â regression is named beside it.
+            modelId = string.Create(CultureInfo.InvariantCulture, $"diffusion radius model fit #{diffusionFigures.ModelFitId}; Â regression: {modelId}");
+        }
+        string configJson = ConfigJson(recipe, specification, unspecified);
+        var (revision, written) = await ReportRevisionWriter.WriteAsync(report,
+            new ReportRevisionRequest(wafer, folder, reason, requester, configJson, modelId, inputs, verdict, summary, answered),
+            _revisions, report.Identity.SoftwareVersion, cancellationToken).ConfigureAwait(false);
         var files = new Dictionary<string, string>(StringComparer.Ordinal)
         {
             ["html"] = written.HtmlPath,
@@ -207,17 +245,61 @@ public sealed class WaferReportService
             ["csv"] = written.CsvPath,
             ["json"] = written.JsonPath,
         };
-        string summary = WaferReportDigestJson.Write(new WaferReportDigest(report.Statistics, evaluation.Prediction, verdictInForce,
-            evaluation.Comparison is { } c ? new WaferAgreementDigest(c.Count, c.BiasNm, c.RmseNm, c.RSquared, c.MeanAbsoluteErrorNm) : null,
-            diffusionFigures is null ? null : DiffusionDigest(diffusionFigures)));
-        string verdict = verdictInForce.Outcome.ToString().ToLowerInvariant();
         foreach (var (format, path) in files)
         {
             await _wafers.SaveReportAsync(new WaferReportRecord(0, wafer, _time.GetUtcNow(), verdict, format, path, format == "json" ? summary : null), cancellationToken).ConfigureAwait(false);
         }
-        Log.ReportWritten(_logger, wafer, verdict, folder);
-        return new WaferReportOutcome(wafer, verdictInForce, folder, files);
+        Log.ReportWritten(_logger, wafer, verdict, revision.Folder);
+        return new WaferReportOutcome(wafer, verdictInForce, revision.Folder, files) { Revision = revision };
     }
+
+    /// <summary>Why the next revision is written and who asked, from the wafer's pending requests.</summary>
+    private async Task<(string Reason, string Requester, IReadOnlyList<long> Answered)> ReasonAsync(string wafer, ReportRequestRecord? onDemand, CancellationToken cancellationToken)
+    {
+        IReadOnlyList<ReportRequestRecord> pending = await _revisions.GetPendingReportRequestsAsync(wafer, cancellationToken).ConfigureAwait(false);
+        var reasons = new List<string>();
+        var requesters = new List<string>();
+        var ids = new List<long>();
+        foreach (ReportRequestRecord r in onDemand is null ? pending : [.. pending, onDemand])
+        {
+            if (!reasons.Contains(r.Reason))
+            {
+                reasons.Add(r.Reason);
+            }
+            if (!requesters.Contains(r.Requester))
+            {
+                requesters.Add(r.Requester);
+            }
+            if (r.Id > 0)
+            {
+                ids.Add(r.Id);
+            }
+        }
+        if (reasons.Count > 0)
+        {
+            return (string.Join("; ", reasons), string.Join(", ", requesters), ids);
+        }
+        bool issued = (await _revisions.GetReportRevisionsAsync(wafer, cancellationToken).ConfigureAwait(false)).Count > 0;
+        return issued ? ("written again (no request recorded)", "daemon", []) : ("first issue", "intake", []);
+    }
+
+    /// <summary>The configuration and specification in force as canonical JSON (fixed property order, invariant numbers).</summary>
+    private string ConfigJson(string recipe, QcSpecification specification, bool unspecified) =>
+        System.Text.Json.JsonSerializer.Serialize(new
+        {
+            recipe,
+            specificationInForce = unspecified ? null : specification,
+            unspecified,
+            pipeline = new
+            {
+                _options.DefaultPixelSizeNm,
+                _options.PredictionSeed,
+                _options.PredictionFields,
+                _options.CaptureRadiusSearchMin,
+                _options.CaptureRadiusSearchMax,
+                _options.DefaultProcess,
+            },
+        }, PipelineJson.Options);
 
     private static WaferDiffusionDigest DiffusionDigest(DiffusionModelFigures d)
     {
@@ -252,16 +334,17 @@ public sealed class WaferReportService
         return safe + "~" + hash;
     }
 
-    private async Task<RadiusModelFit?> AcceptedModelAsync(string process, CancellationToken cancellationToken)
+    private async Task<(RadiusModelFit? Fit, string Id)> AcceptedModelAsync(string process, CancellationToken cancellationToken)
     {
         foreach (ModelFitRecord fit in await _wafers.GetModelFitsAsync(process, ModelKinds.Radius, 50, cancellationToken).ConfigureAwait(false))
         {
-            if (fit.AcceptedAt is not null)
+            if (fit.AcceptedAt is { } at)
             {
-                return ModelJson.Deserialize<RadiusModelFit>(fit.ParamsJson);
+                return (ModelJson.Deserialize<RadiusModelFit>(fit.ParamsJson), string.Create(CultureInfo.InvariantCulture,
+                    $"radius model fit #{fit.Id} of process {process}, accepted by {fit.AcceptedBy ?? "unknown"} at {at.UtcDateTime:yyyy-MM-dd HH:mm} UTC"));
             }
         }
-        return null;
+        return (null, "none accepted");
     }
 
     private async Task<ThermalSummary> ThermalAsync(RunRecord? run, RunExcursions excursions, CancellationToken cancellationToken)

@@ -56,6 +56,7 @@ public static partial class DashboardHostingExtensions
         services.TryAddSingleton<ReminderBindings>();
         services.TryAddSingleton<ReminderMonitor>();
         services.TryAddSingleton<ReminderRuleEditor>();
+        services.TryAddSingleton<Records.ReportRevisionQueries>();
         services.AddHealthChecks().AddCheck<ReminderCoverageHealthCheck>("reminders");
         services.TryAddSingleton(sp =>
         {

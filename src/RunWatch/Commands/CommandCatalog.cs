@@ -13,6 +13,7 @@ internal static class CommandCatalog
         root.Subcommands.Add(ReplayCommand.Create());
         root.Subcommands.Add(ThermalCommand.Create());
         root.Subcommands.Add(ReportCommand.Create());
+        root.Subcommands.Add(VerifyCommand.Create());
         root.Subcommands.Add(AnalyzeCommand.Create());
         root.Subcommands.Add(ModelCommand.Create());
         root.Subcommands.Add(HashPasswordCommand.Create());

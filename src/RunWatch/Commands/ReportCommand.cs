@@ -31,8 +31,10 @@ internal static class ReportCommand
             try
             {
                 await store.MigrateAsync(cancellationToken).ConfigureAwait(false);
-                WaferReportOutcome outcome = await host.Services.GetRequiredService<WaferReportService>().WriteAsync(waferId, cancellationToken).ConfigureAwait(false);
-                Console.WriteLine($"wafer {outcome.Wafer}: verdict {outcome.Verdict.Outcome.ToString().ToUpperInvariant()}");
+                var onDemand = new ReportRequestRecord(0, waferId, DateTimeOffset.UtcNow, Environment.UserName + " (runwatch report)", "written on demand with runwatch report");
+                WaferReportOutcome outcome = await host.Services.GetRequiredService<WaferReportService>().WriteAsync(waferId, onDemand, cancellationToken).ConfigureAwait(false);
+                Console.WriteLine($"wafer {outcome.Wafer}: verdict {outcome.Verdict.Outcome.ToString().ToUpperInvariant()}, revision {outcome.Revision?.Revision} ({outcome.Revision?.Reason})");
+                Console.WriteLine($"  content SHA-256 {outcome.Revision?.ContentSha256}");
                 foreach (var reason in outcome.Verdict.Reasons)
                 {
                     Console.WriteLine($"  {reason.Outcome.ToString().ToLowerInvariant()}: {reason.Reason}");

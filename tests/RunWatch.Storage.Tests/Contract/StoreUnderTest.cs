@@ -37,6 +37,7 @@ internal sealed class StoreUnderTest : IAsyncDisposable
 
     public IReminderBindingStore ReminderBindings => (IReminderBindingStore)_store;
 
+    public IReportRevisionStore Revisions => (IReportRevisionStore)_store;
     public INoteStore Notes => (INoteStore)_store;
 
     public static async Task<StoreUnderTest> CreateAsync(StoreKind kind, Action<StorageOptions>? configure = null)

@@ -36,12 +36,12 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
         Assert.Contains("invented", output, StringComparison.Ordinal);
         foreach (string wafer in new[] { "W-DEMO-01-A", "W-DEMO-01-B", "W-DEMO-02-A" })
         {
-            string folder = Path.Combine(demo.DataFolder, "reports", wafer);
-            string pdf = Path.Combine(folder, wafer + ".pdf");
+            (string folder, string stem) = NewestRevision(wafer);
+            string pdf = Path.Combine(folder, stem + ".pdf");
             Assert.True(File.Exists(pdf), $"no PDF for {wafer}:\n{output}");
-            Assert.True(File.Exists(Path.Combine(folder, wafer + ".html")));
-            Assert.True(File.Exists(Path.Combine(folder, wafer + "-wires.csv")));
-            using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, wafer + ".json")));
+            Assert.True(File.Exists(Path.Combine(folder, stem + ".html")));
+            Assert.True(File.Exists(Path.Combine(folder, stem + "-wires.csv")));
+            using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, stem + ".json")));
             string verdict = summary.RootElement.GetProperty("verdict").GetProperty("outcome").GetString()!;
             Assert.Contains(verdict, new[] { "Pass", "Warn", "Fail" });
             // The demo prints each wafer's first verdict. A browser test of the same demo may upload a field to a demo
@@ -61,11 +61,52 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
         // The first wafer proposes the process's radius model, the demo user accepts it, and the later wafer is
         // judged against it: its bias rule is measured, not skipped.
         Assert.Contains("accepted by 'demo-engineer'", output, StringComparison.Ordinal);
-        using var later = JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.DataFolder, "reports", "W-DEMO-02-A", "W-DEMO-02-A.json")));
+        (string laterFolder, string laterStem) = NewestRevision("W-DEMO-02-A");
+        using var later = JsonDocument.Parse(File.ReadAllText(Path.Combine(laterFolder, laterStem + ".json")));
         JsonElement bias = later.RootElement.GetProperty("verdict").GetProperty("rules").EnumerateArray()
             .Single(r => r.GetProperty("rule").GetString() == "prediction-bias");
         Assert.Equal(JsonValueKind.Number, bias.GetProperty("measured").ValueKind);
         Assert.DoesNotContain("Unhandled exception", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Verify_DemoReportRevision_VerifiesAndACopyWithOneByteChangedDoesNot()
+    {
+        await demo.WaitAllReportedAsync();
+        (string folder, string stem) = NewestRevision("W-DEMO-01-A");
+
+        var (okCode, okOutput) = Run(TimeSpan.FromMinutes(1), "verify", Path.Combine(folder, stem + ".pdf"), "--Storage:DataDirectory=" + demo.DataFolder);
+
+        Assert.True(okCode == 0, okOutput);
+        Assert.Contains("verified: wafer W-DEMO-01-A revision", okOutput, StringComparison.Ordinal);
+
+        // A copy of the revision with one byte of its PDF changed (the copy is writable; the issued files are not).
+        Directory.CreateDirectory(_folder);
+        foreach (string file in Directory.EnumerateFiles(folder))
+        {
+            File.WriteAllBytes(Path.Combine(_folder, Path.GetFileName(file)), File.ReadAllBytes(file));
+        }
+        string copy = Path.Combine(_folder, stem + ".pdf");
+        byte[] bytes = File.ReadAllBytes(copy);
+        bytes[bytes.Length / 2] ^= 0x20;
+        File.WriteAllBytes(copy, bytes);
+
+        var (badCode, badOutput) = Run(TimeSpan.FromMinutes(1), "verify", _folder, "--no-store");
+
+        Assert.Equal(1, badCode);
+        Assert.Contains("MISMATCH", badOutput, StringComparison.Ordinal);
+        Assert.Contains(stem + ".pdf has changed since it was issued", badOutput, StringComparison.Ordinal);
+    }
+
+    /// <summary>The newest revision folder of a demo wafer's report and its files' common name.</summary>
+    private (string Folder, string Stem) NewestRevision(string wafer)
+    {
+        string root = Path.Combine(demo.DataFolder, "reports", wafer);
+        int newest = Directory.Exists(root)
+            ? Directory.EnumerateDirectories(root, "r*").Select(d => int.TryParse(Path.GetFileName(d)[1..], out int n) ? n : 0).DefaultIfEmpty(0).Max()
+            : 0;
+        Assert.True(newest > 0, "no report revision for " + wafer + " under " + root);
+        return (Path.Combine(root, "r" + newest.ToString(System.Globalization.CultureInfo.InvariantCulture)), wafer + "-r" + newest.ToString(System.Globalization.CultureInfo.InvariantCulture));
     }
 
     [Fact]

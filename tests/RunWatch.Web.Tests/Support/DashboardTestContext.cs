@@ -16,10 +16,14 @@ namespace RunWatch.Web.Tests.Support;
 /// <summary>A bUnit context with the dashboard's services over an in-memory source and a fake clock.</summary>
 internal sealed class DashboardTestContext : BunitContext
 {
+    /// <summary>Report revisions for the wafer page (none kept unless a store is given).</summary>
+    public RunWatch.Web.Records.ReportRevisionQueries Revisions { get; }
+
     public static readonly DateTimeOffset Now = new(2026, 3, 4, 10, 0, 0, TimeSpan.Zero);
 
-    public DashboardTestContext(string role = "engineer", bool seed = true)
+    public DashboardTestContext(string role = "engineer", bool seed = true, RunWatch.Storage.IReportRevisionStore? revisions = null)
     {
+        Revisions = new RunWatch.Web.Records.ReportRevisionQueries(revisions);
         Time = new FakeTimeProvider(Now);
         Data = new InMemoryDashboardData(Time);
         if (seed)
@@ -40,6 +44,7 @@ internal sealed class DashboardTestContext : BunitContext
         Services.AddSingleton<ReminderBindings>();
         Services.AddSingleton<ReminderMonitor>();
         Services.AddSingleton<ReminderRuleEditor>();
+        Services.AddSingleton(Revisions);
         Services.AddSingleton(new RunWatch.Web.Security.UserDirectory());
         Services.AddSingleton<IConfiguration>(new ConfigurationBuilder().AddInMemoryCollection(new Dictionary<string, string?>
         {

@@ -153,7 +153,7 @@ public sealed class CaptureAreaTable
     /// </summary>
     /// <exception cref="ArgumentException">Bad range or options, or the spans/field problems of <see cref="SinkGrid.Rasterise"/>.</exception>
     public static CaptureAreaTable Build(ReadOnlySpan<Point2D> centresUm, ReadOnlySpan<double> radiiUm, CaptureField fieldUm,
-        double lambdaMinUm, double lambdaMaxUm, CaptureTableOptions? options = null)
+        double lambdaMinUm, double lambdaMaxUm, CaptureTableOptions? options = null, CancellationToken cancellationToken = default)
     {
         options ??= new CaptureTableOptions();
         IReadOnlyList<string> problems = options.Validate();
@@ -183,19 +183,20 @@ public sealed class CaptureAreaTable
         var parallel = new ParallelOptions
         {
             MaxDegreeOfParallelism = options.MaxDegreeOfParallelism > 0 ? options.MaxDegreeOfParallelism : Environment.ProcessorCount,
+            CancellationToken = cancellationToken,
         };
         Parallel.For(0, items, parallel, () => new ScreenedDiffusionSolver(grid, options.Solver), (item, _, solver) =>
         {
             if (item < nodes.Length)
             {
-                SinkCurrents c = solver.Solve(nodes[item], periodic ? BorderCondition.Periodic : BorderCondition.Reflecting);
+                SinkCurrents c = solver.Solve(nodes[item], periodic ? BorderCondition.Periodic : BorderCondition.Reflecting, cancellationToken);
                 c.CaptureAreas.CopyTo(areas, item * n);
             }
             else
             {
                 int node = nodes.Length - boundNodes + ((item - nodes.Length) % boundNodes);
                 bool absorbing = item < nodes.Length + boundNodes;
-                SinkCurrents c = solver.Solve(nodes[node], absorbing ? BorderCondition.Absorbing : BorderCondition.Saturated);
+                SinkCurrents c = solver.Solve(nodes[node], absorbing ? BorderCondition.Absorbing : BorderCondition.Saturated, cancellationToken);
                 c.CaptureAreas.CopyTo(absorbing ? lower : upper, node * n);
             }
             return solver;

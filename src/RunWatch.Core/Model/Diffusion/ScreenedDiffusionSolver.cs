@@ -22,6 +22,9 @@ namespace RunWatch.Core.Model.Diffusion;
 /// </remarks>
 public sealed class ScreenedDiffusionSolver
 {
+    // The token of the solve in progress (one solve at a time per solver); checked between iterations.
+    private CancellationToken _cancellation;
+
     /// <summary>Smallest boundary fraction θ used, so a circle grazing a cell centre cannot make the matrix ill-conditioned.</summary>
     public const double MinimumBoundaryFraction = 0.1;
 
@@ -75,8 +78,10 @@ public sealed class ScreenedDiffusionSolver
     /// </summary>
     /// <exception cref="ArgumentException">λ not positive, or infinite with a saturated border, or a periodic border on a non-periodic grid (or the reverse).</exception>
     /// <exception cref="InvalidOperationException">No convergence within the iteration limit (e.g. λ = ∞ with no sink and no absorbing border).</exception>
-    public SinkCurrents Solve(double lambda, BorderCondition border)
+    /// <exception cref="OperationCanceledException"><paramref name="cancellationToken"/> was cancelled (checked every 16 iterations).</exception>
+    public SinkCurrents Solve(double lambda, BorderCondition border, CancellationToken cancellationToken = default)
     {
+        _cancellation = cancellationToken;
         if (!(lambda > 0) || double.IsNaN(lambda))
         {
             throw new ArgumentException($"The capture length must be positive (got {lambda}).", nameof(lambda));
@@ -181,6 +186,10 @@ public sealed class ScreenedDiffusionSolver
         double rr = bNorm2;
         for (int iteration = 1; iteration <= _options.MaxIterations; iteration++)
         {
+            if ((iteration & 15) == 0)
+            {
+                _cancellation.ThrowIfCancellationRequested();
+            }
             double pq = MultiplyPQ();
             double alpha = rz / pq;
             rr = 0;

@@ -126,7 +126,7 @@ public sealed partial class StoreWaferData(IWaferStore wafers)
             var reports = await wafers.GetReportsAsync(field.Wafer, cancellationToken).ConfigureAwait(false);
             if (reports.FirstOrDefault() is { } any)
             {
-                path = WaferFiles.OverlayPath(Path.GetDirectoryName(any.FilePath)!, id);
+                path = WaferFiles.OverlayPath(WaferFiles.WaferFolderOfReport(any.FilePath), id);
             }
         }
         else if (Path.GetExtension(field.FilePath).ToLowerInvariant() is ".png" or ".jpg" or ".jpeg")

@@ -70,6 +70,27 @@ public sealed class StoreWaferDataTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task GetFieldImageAsync_ReportsInARevisionFolder_OverlayFromTheWaferFolder()
+    {
+        // Reports are issued into reports/W-2/r1/ (marked by revision.json); overlays stay in reports/W-2/fields/.
+        string wafer = Path.Combine(_folder, "reports", "W-2");
+        string revision = Path.Combine(wafer, "r1");
+        Directory.CreateDirectory(revision);
+        await File.WriteAllTextAsync(Path.Combine(revision, WaferFiles.RevisionManifestName), "{}");
+        await _store.SaveReportAsync(new WaferReportRecord(0, "W-2", T0, "pass", "pdf", Path.Combine(revision, "W-2-r1.pdf"), null), CancellationToken.None);
+        var (field, _) = await _store.AddFieldAsync(new FieldRecord { Wafer = "W-2", FilePath = "/drop/w2.tif", RelativePath = "w2.tif", Sha256 = "ef", ImportedAt = T0 }, CancellationToken.None);
+        string overlay = WaferFiles.OverlayPath(wafer, field.Id);
+        Directory.CreateDirectory(Path.GetDirectoryName(overlay)!);
+        byte[] png = [0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A, 1, 2, 3];
+        await File.WriteAllBytesAsync(overlay, png);
+
+        ReportFile? image = await _data.GetFieldImageAsync(field.Id.ToString(System.Globalization.CultureInfo.InvariantCulture), overlay: true, CancellationToken.None);
+
+        Assert.NotNull(image);
+        Assert.Equal(png, image!.Content);
+    }
+
+    [Fact]
     public async Task GetWaferAsync_StoredResultsWithDroplets_ShowsWireAndDropletRadiusPerFieldAndPooled()
     {
         // Invented results as the pipeline stores them (Storage's FieldResultJson): field 1 has two droplet-bearing
