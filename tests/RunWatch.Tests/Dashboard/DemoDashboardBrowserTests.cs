@@ -91,8 +91,9 @@ public sealed partial class DemoDashboardBrowserTests(DemoFixture demo, ITestOut
         var actionable = page.Locator("[data-testid=alert-row]:has([data-testid=acknowledge])");
         await Assertions.Expect(actionable.First).ToBeVisibleAsync(Soon);
         await demo.ScreenshotAsync(page, "alerts");
-        var row = actionable.First;
-        string alertId = (await row.GetAttributeAsync("data-alert"))!;
+        string alertId = (await actionable.First.GetAttributeAsync("data-alert"))!;
+        // Pin the row by its id: live refreshes reorder the table, and a lazy ".First" could act on another alert.
+        var row = page.Locator($"[data-testid=alert-row][data-alert='{alertId}']");
         const string Comment = "seen; hold excursion played by the test, no action needed";
         await row.Locator("[data-testid=comment]").FillAsync(Comment);
         await row.Locator("[data-testid=acknowledge]").ClickAsync();

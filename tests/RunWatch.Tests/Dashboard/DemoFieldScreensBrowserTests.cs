@@ -303,7 +303,7 @@ public sealed partial class DemoFieldScreensBrowserTests(DemoFixture demo, ITest
     private static double[] ViewBox(string viewBox) =>
         [.. viewBox.Split(' ', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture))];
 
-    [GeneratedRegex(@"SEM fields \(invented\) dropped into (.+)$", RegexOptions.Multiline)]
+    [GeneratedRegex(@"SEM fields \(invented\) dropped into ([^;\r\n]+)", RegexOptions.Multiline)]
     private static partial Regex DropFolderLine();
 
     [GeneratedRegex(@"as field (\d+)")]

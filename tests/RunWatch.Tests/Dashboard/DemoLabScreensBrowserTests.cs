@@ -66,7 +66,7 @@ public sealed partial class DemoLabScreensBrowserTests(DemoFixture demo, ITestOu
         await page.WaitForURLAsync(new Regex("/wafers/" + Wafer + "#field-\\d+$"));
         await Assertions.Expect(page.Locator("#" + fieldHref[(fieldHref.IndexOf('#', StringComparison.Ordinal) + 1)..])).ToBeVisibleAsync(Soon);
         // The wafer page's histogram states its target and predicted bands.
-        await Assertions.Expect(page.Locator("[data-testid=histogram-bands]")).ToContainTextAsync("target window 22.0–38.0 nm", new() { Timeout = 20_000 });
+        await Assertions.Expect(page.Locator("[data-testid=histogram-bands]")).ToContainTextAsync("target window 40.0–56.0 nm" /* the demo recipe: 48 ± 8 nm (DemoSettings) */, new() { Timeout = 20_000 });
         await Assertions.Expect(page.Locator("[data-testid=wafer-map-link]")).ToHaveAttributeAsync("href", $"wafers/{Wafer}/map");
 
         // Trends: both demo runs on the λ_eff chart; a point opens its run.

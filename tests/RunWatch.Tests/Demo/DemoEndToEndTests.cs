@@ -46,7 +46,7 @@ public sealed class DemoEndToEndTests(DemoFixture demo) : IDisposable
             Assert.Contains(verdict, new[] { "Pass", "Warn", "Fail" });
             // The demo prints each wafer's first verdict. A browser test of the same demo may upload a field to a demo
             // wafer (DemoFieldScreensBrowserTests), which rightly rewrites its report; then only the printed line is checked.
-            bool onlyDemoFields = File.ReadLines(Path.Combine(folder, wafer + "-wires.csv")).Skip(1)
+            bool onlyDemoFields = File.ReadLines(Path.Combine(folder, stem + "-wires.csv")).Skip(1)
                 .All(line => line.Contains("_field0", StringComparison.Ordinal));
             Assert.Matches($"wafer {wafer}: verdict (PASS|WARN|FAIL)", output);
             if (onlyDemoFields)
