@@ -43,6 +43,9 @@ internal sealed class PipelineFieldUploads(FieldUploader uploader, FieldIntake i
             ? $"This image was taken in before, as field {id} ({FieldStates.Label(state).ToLowerInvariant()}); nothing new was stored."
             : state == FieldQueueState.Queued
                 ? $"{request.FileName} uploaded by {user} as field {id} of wafer {field.Wafer}; queued for analysis."
+            // The queue can take the field before this message is written; it was queued all the same.
+            : state is FieldQueueState.Running or FieldQueueState.Done
+                ? $"{request.FileName} uploaded by {user} as field {id} of wafer {field.Wafer}; queued for analysis (already started)."
                 : $"{request.FileName} uploaded by {user} as field {id}, but it waits: {field.Problem}. Assign it on the wafer page once the wafer's run is known.";
         return new FieldUploadResult(true, id, field.Wafer, state, message);
     }
