@@ -34,14 +34,14 @@ public sealed record AdatomPhysics(
     double SeedRadiusSdNm = 1.5,
     double MeanNucleationDelayS = 45)
 {
-    /// <summary>Boltzmann constant in eV/K (exact SI value 1.380649e-23 J/K ÷ 1.602176634e-19 J/eV).</summary>
-    public const double BoltzmannEvPerK = 8.617333262e-5;
+    /// <summary>Boltzmann constant in eV/K, from Core's exact SI constants (a constant of nature, not the model under test).</summary>
+    public const double BoltzmannEvPerK = RunWatch.Core.Thermal.PhysicalConstants.BoltzmannEvPerK;
 
     /// <summary>D at <paramref name="temperatureC"/> (µm²/s).</summary>
-    public double DiffusivityUm2PerS(double temperatureC) => DiffusivityPrefactorUm2PerS * Math.Exp(-DiffusionBarrierEv / (BoltzmannEvPerK * (temperatureC + 273.15)));
+    public double DiffusivityUm2PerS(double temperatureC) => DiffusivityPrefactorUm2PerS * Math.Exp(-DiffusionBarrierEv / (BoltzmannEvPerK * (temperatureC + RunWatch.Core.Thermal.PhysicalConstants.ZeroCelsiusK)));
 
     /// <summary>τ at <paramref name="temperatureC"/> (s).</summary>
-    public double LifetimeS(double temperatureC) => LifetimePrefactorS * Math.Exp(DesorptionEnergyEv / (BoltzmannEvPerK * (temperatureC + 273.15)));
+    public double LifetimeS(double temperatureC) => LifetimePrefactorS * Math.Exp(DesorptionEnergyEv / (BoltzmannEvPerK * (temperatureC + RunWatch.Core.Thermal.PhysicalConstants.ZeroCelsiusK)));
 
     /// <summary>λ = √(D·τ) at <paramref name="temperatureC"/> (µm).</summary>
     public double CaptureLengthUm(double temperatureC) => Math.Sqrt(DiffusivityUm2PerS(temperatureC) * LifetimeS(temperatureC));
